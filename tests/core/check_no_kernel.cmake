@@ -1,0 +1,13 @@
+# Fails when any source under plugin/core includes an OCCT header: the engine must stay kernel-neutral.
+file(GLOB_RECURSE files "${SOURCE_DIR}/plugin/core/*.h" "${SOURCE_DIR}/plugin/core/*.cpp")
+set(bad "")
+foreach(f ${files})
+  file(STRINGS "${f}" lines REGEX "^[ \t]*#[ \t]*include[ \t]*[<\"](Standard|TopoDS|TopAbs|TopExp|TopTools|BRep|Geom|GCPnts|gp|STEP|XCAF|TDF|TDocStd|Interface|Precision|Adaptor|IFSelect|TCollection|NCollection)[A-Za-z0-9_]*(\\.hxx)?[>\"]")
+  if(lines)
+    list(APPEND bad "${f}: ${lines}")
+  endif()
+endforeach()
+if(bad)
+  message(FATAL_ERROR "OCCT include in plugin/core:\n${bad}")
+endif()
+message(STATUS "plugin/core includes no OCCT header (${CMAKE_CURRENT_LIST_FILE})")
