@@ -1,0 +1,21 @@
+#include "plugin/draw/session_shape.h"
+
+#include <DBRep.hxx>
+#include <TCollection_AsciiString.hxx>
+#include <TopoDS_Shape.hxx>
+
+#include "kernel_adapters/occt/shape_model.h"
+#include "plugin/core/error.h"
+
+namespace ergpath::draw {
+
+occt::StepModel session_model(const std::string& name) {
+  const std::string label = "shape " + name;
+  if (name.empty()) throw Error(ErrorKind::UnreadableFile, "an empty shape name (give a DRAW variable name)");
+  // GetExisting, not Get: Get takes "." as "pick a shape in the viewer", which waits forever in batch.
+  const TopoDS_Shape shape = DBRep::GetExisting(TCollection_AsciiString(name.c_str()));
+  if (shape.IsNull()) throw Error(ErrorKind::UnreadableFile, label + ": no such shape in this session");
+  return occt::model_from_shape(shape, label);
+}
+
+}  // namespace ergpath::draw
