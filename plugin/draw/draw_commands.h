@@ -11,9 +11,6 @@ namespace ergpath::draw {
 /// Registers every command below.
 void add_commands(Draw_Interpretor& di);
 
-/// ergpath_list SHAPE: the numbered edges of a session shape. Result: the edge count (or the JSON text).
-void add_list_command(Draw_Interpretor& di);
-
 /// ergpath_work SHAPE ...: work along a shape's own path or a selection of its edges. Result: joules.
 void add_work_command(Draw_Interpretor& di);
 

@@ -7,7 +7,6 @@
 namespace ergpath::draw {
 
 void add_commands(Draw_Interpretor& di) {
-  add_list_command(di);
   add_work_command(di);
 }
 

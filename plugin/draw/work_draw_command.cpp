@@ -6,6 +6,7 @@
 #include <string>
 
 #include "kernel_adapters/occt/shape_model.h"
+#include "kernel_adapters/occt/step_model_impl.h"
 #include "plugin/cli/field_options.h"
 #include "plugin/cli/work_command.h"
 #include "plugin/draw/draw_command.h"
@@ -42,7 +43,7 @@ int work_command(Draw_Interpretor& di, Standard_Integer argc, const char** argv)
       own = occt::path_of_shape(model, cli::make_path_options(args.path));
     }
     if (own) {
-      args.path.selector = "own order";
+      args.path.selector = model.impl().shape.ShapeType() == TopAbs_WIRE ? "the wire" : "the edge";
       result = cli::run_work_on_path(model, *own, args, report);
     } else {
       result = cli::run_work(model, args, report);

@@ -4,7 +4,7 @@ source [file join $env(ERGPATH_TEST_DIR) check.tcl]
 pload MODELING
 pload -ErgPath ERGPATH
 
-foreach command {ergpath_list ergpath_work} {
+foreach command {ergpath_work} {
   check_true "$command is registered" {[llength [info commands $command]] == 1}
 }
 
@@ -19,7 +19,6 @@ vertex v 1 2 3
 check_usage "ergpath_work without arguments prints the usage" {ergpath_work} "ergpath_work SHAPE"
 check_usage "ergpath_work with an unknown option prints the usage" {ergpath_work e --no-such-option 1} \
     "ergpath_work SHAPE"
-check_usage "ergpath_list without arguments prints the usage" {ergpath_list} "ergpath_list SHAPE"
 check_usage "ergpath_work --format xml prints the usage" {ergpath_work e --field {0,0,0} --format xml} \
     "ergpath_work SHAPE"
 check_error_kind "no such shape" {ergpath_work nosuch --field {0, 0, 1}} unreadable_file

@@ -4,7 +4,7 @@ pload MODELING
 pload -ErgPath ERGPATH
 
 set g_n 9.80665  ;# standard gravity, m/s^2 (CGPM 1901, BIPM SI Brochure)
-set pi [expr {acos(-1)}]
+set PI [expr {acos(-1)}]
 # Relative tolerance of the checks: ten times the default integration target (1e-10 of the integral of
 # |F.dr|), which the engine's error estimate promises to meet.
 set rel 1e-9
@@ -14,13 +14,13 @@ set rel 1e-9
 circle c 0 0 0 50
 mkedge e c
 set w [ergpath_work e --field {-y, x, 0}]
-set want [expr {2 * $pi * 0.05 * 0.05}]
+set want [expr {2 * $PI * 0.05 * 0.05}]
 check_near "circle r 50 mm: circulation of (-y, x, 0) is 2 x area" $w $want [expr {$rel * $want}]
 
 # Arc length of the same circle: 2 pi r (Euclid), read from the JSON report.
 set json [ergpath_work e --field {0, 0, 0} --format json]
-check_near "circle r 50 mm: path length is 2 pi r" [json_top_number $json length_m] [expr {2 * $pi * 0.05}] \
-    [expr {$rel * 2 * $pi * 0.05}]
+check_near "circle r 50 mm: path length is 2 pi r" [json_top_number $json length_m] [expr {2 * $PI * 0.05}] \
+    [expr {$rel * 2 * $PI * 0.05}]
 
 # An edge given directly is travelled in its orientation: the reversed edge gives the opposite sign.
 copy e er
