@@ -148,8 +148,9 @@ bool read_with_xde(StepModel::Impl& impl, XdeEdgeLabels& labels) {
     }
   } closer{app, doc};
 
-  Interface_Static::SetIVal("read.stepcaf.subshapes.name", 1);
   STEPCAFControl_Reader reader;
+  // The XDE settings exist only once an XDE reader has initialised its controller.
+  Interface_Static::SetIVal("read.stepcaf.subshapes.name", 1);
   reader.SetNameMode(Standard_True);
   if (reader.ReadFile(impl.file.c_str()) != IFSelect_RetDone) {
     unreadable(impl.file, "the STEP reader rejected the file (syntax or schema error)");
