@@ -32,6 +32,8 @@ int fail(Draw_Interpretor& di, const std::string& command, const std::string& ki
 
 }  // namespace
 
+std::string usage_text(const CLI::App& app) { return app.help(); }
+
 std::string tcl_number(double value) {
   std::ostringstream os;
   os.precision(17);

@@ -25,6 +25,10 @@ struct CommandOutput {
 
 using CommandBody = std::function<CommandOutput()>;
 
+/// The usage text CLI11 makes from the option definitions on `app` (the same ones that parse the
+/// command, so the text cannot drift from what it accepts), under the app's description.
+std::string usage_text(const CLI::App& app);
+
 /// Parses argv[1..argc-1] with `options` (argv[0] is the command name), then runs `body`.
 /// Returns 0 on success. Returns 1 with the Tcl result set to
 /// - "<command>: <parse message>" plus the usage text on bad arguments (`-h`/`--help` gives the usage

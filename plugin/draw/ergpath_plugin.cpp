@@ -7,7 +7,9 @@
 namespace ergpath::draw {
 
 void add_commands(Draw_Interpretor& di) {
+  add_list_command(di);
   add_work_command(di);
+  add_profile_command(di);
 }
 
 }  // namespace ergpath::draw

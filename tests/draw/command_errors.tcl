@@ -4,7 +4,7 @@ source [file join $env(ERGPATH_TEST_DIR) check.tcl]
 pload MODELING
 pload -ErgPath ERGPATH
 
-foreach command {ergpath_work} {
+foreach command {ergpath_list ergpath_work ergpath_profile} {
   check_true "$command is registered" {[llength [info commands $command]] == 1}
 }
 
@@ -16,11 +16,17 @@ mkedge b l 200 300
 compound a b apart
 vertex v 1 2 3
 
-check_usage "ergpath_work without arguments prints the usage" {ergpath_work} "ergpath_work SHAPE"
+check_usage "ergpath_work without arguments prints the usage" {ergpath_work} "Usage: ergpath_work"
 check_usage "ergpath_work with an unknown option prints the usage" {ergpath_work e --no-such-option 1} \
-    "ergpath_work SHAPE"
+    "Usage: ergpath_work"
 check_usage "ergpath_work --format xml prints the usage" {ergpath_work e --field {0,0,0} --format xml} \
-    "ergpath_work SHAPE"
+    "Usage: ergpath_work"
+check_usage "ergpath_list without arguments prints the usage" {ergpath_list} "Usage: ergpath_list"
+check_usage "ergpath_profile without stations is a bad option, with arguments it needs SHAPE" {ergpath_profile} \
+    "Usage: ergpath_profile"
+check_error_kind "ergpath_profile without --at, --spacing or --samples" {ergpath_profile e --field {0, 0, 1}} \
+    bad_option
+check_error_kind "ergpath_list of no such shape" {ergpath_list nosuch} unreadable_file
 check_error_kind "no such shape" {ergpath_work nosuch --field {0, 0, 1}} unreadable_file
 check_error_kind "a vertex holds no edge" {ergpath_work v --field {0, 0, 1}} empty_model
 check_error_kind "formula syntax error" {ergpath_work e --field {0, 0, -m*}} bad_formula

@@ -87,4 +87,21 @@ set w [ergpath_work ramp --path edge:3 --field {0, 0, -m*g_n} --const m=25]
 set want [expr {-25 * $g_n * 0.3}]
 check_near "ramp, --path edge:3: gravity work over its 300 mm rise" $w $want [expr {$rel * abs($want)}]
 
+# ergpath_profile: W(s) along the ramp is -m g_n z(s) at every station (uniform gravity). Stations: the
+# ends of the first two runs (lengths sqrt(0.3^2 + 0.1^2) and 0.3 m) and half-way up the last run, where
+# z = 250 mm.
+set l1 [expr {sqrt(0.09 + 0.01)}]
+set half3 [expr {$l1 + 0.3 + 0.5 * sqrt(0.09 + 0.09)}]
+set profile [ergpath_profile ramp --field {0, 0, -m*g_n} --const m=25 --at "$l1,[expr {$l1 + 0.3}],$half3"]
+check_equal "ergpath_profile: one triple per station" [llength $profile] 3
+set i 0
+foreach z {0.1 0.1 0.25} {
+  lassign [lindex $profile $i] s w f
+  set want [expr {-25 * $g_n * $z}]
+  check_near "ramp profile station [incr i]: W(s) is -m g_n z(s)" $w $want [expr {$rel * abs($want)}]
+}
+# The tangential force on the last run: -m g_n sin(45 deg).
+check_near "ramp profile: F.T on the 45-degree run is -m g_n sin 45" $f [expr {-25 * $g_n * sqrt(0.5)}] \
+    [expr {$rel * 25 * $g_n}]
+
 finish
