@@ -65,9 +65,9 @@ StepModel model_from_shape(const TopoDS_Shape& shape, const std::string& label) 
   if (shape.IsNull()) throw Error(ErrorKind::EmptyModel, label + ": the shape is null (it holds no edges)");
   auto impl = std::make_unique<StepModel::Impl>();
   impl->file = label;
-  impl->file_unit = "unknown";
-  impl->schema = "unknown";
-  impl->protocol = "unknown";
+  impl->file_unit = "mm";
+  impl->schema = "none";
+  impl->protocol = "none";
   impl->shape = shape;
   return StepModel::from_impl(std::move(impl));
 }
@@ -100,7 +100,8 @@ std::optional<Path> path_of_shape(const StepModel& model, const PathOptions& opt
     if (model.edge(index).degenerated) continue;
     path.segments.push_back(segment_of(model, index, rev));
   }
-  if (path.segments.empty()) throw Error(ErrorKind::UnknownEdge, model.file() + ": every edge is degenerated");
+  if (path.segments.empty())
+    throw Error(ErrorKind::UnknownEdge, model.file() + ": every edge is degenerated");
   for (std::size_t i = 1; i < path.segments.size(); ++i) {
     const double gap = distance(travel_end(path.segments[i - 1]), travel_start(path.segments[i]));
     if (gap > options.gap_tolerance_mm) {
@@ -123,7 +124,8 @@ std::optional<Path> path_of_shape(const StepModel& model, const PathOptions& opt
     } else {
       std::size_t best = 0;
       for (std::size_t i = 1; i < path.segments.size(); ++i) {
-        if (distance(p, travel_start(path.segments[i])) < distance(p, travel_start(path.segments[best]))) best = i;
+        if (distance(p, travel_start(path.segments[i])) < distance(p, travel_start(path.segments[best])))
+          best = i;
       }
       std::rotate(path.segments.begin(), path.segments.begin() + static_cast<std::ptrdiff_t>(best),
                   path.segments.end());

@@ -19,8 +19,9 @@
 namespace ergpath::occt {
 
 /// A model whose geometry is `shape`, coordinates taken as millimetres (the unit the kernel's STEP
-/// reader converts to). `label` stands in for the file name in messages and reports; file_unit() and
-/// schema() are "unknown". Throws Error(EmptyModel) for a null shape or one without edges, naming label.
+/// reader converts to). `label` stands in for the file name in messages and reports; file_unit() is
+/// "mm", schema() and application_protocol() are "none". Throws Error(EmptyModel) for a null shape or
+/// one without edges, naming label.
 StepModel model_from_shape(const TopoDS_Shape& shape, const std::string& label);
 
 /// The path the model's shape describes by itself, or nullopt when it is neither an edge nor a wire

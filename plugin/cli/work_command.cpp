@@ -44,7 +44,8 @@ WorkResult run_work(const occt::StepModel& model, const WorkArgs& a, std::ostrea
   return run_work_on_path(model, occt::build_path(model, edges, popts), a, out);
 }
 
-WorkResult run_work_on_path(const occt::StepModel& model, const Path& path, const WorkArgs& a, std::ostream& out) {
+WorkResult run_work_on_path(const occt::StepModel& model, const Path& path, const WorkArgs& a,
+                            std::ostream& out) {
   const FieldSpec spec = checked_field_spec(a);
   IntegrationOptions iopts;
   iopts.rel_tol = a.tolerance;

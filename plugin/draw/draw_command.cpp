@@ -65,8 +65,8 @@ int run_draw_command(Draw_Interpretor& di, int argc, const char** argv, CLI::App
     return fail(di, command, to_string(e.kind()), e.what());
   } catch (const Standard_Failure& e) {
     const char* what = e.GetMessageString();
-    return fail(di, command, "kernel", std::string(e.DynamicType()->Name()) + (what && *what ? ": " : "") +
-                                           (what ? what : ""));
+    return fail(di, command, "kernel",
+                std::string(e.DynamicType()->Name()) + (what && *what ? ": " : "") + (what ? what : ""));
   } catch (const std::bad_alloc&) {
     return fail(di, command, "internal", "out of memory");
   } catch (const std::exception& e) {

@@ -27,11 +27,14 @@ struct ListCommandArgs {
 
 std::unique_ptr<CLI::App> list_options(ListCommandArgs& a) {
   auto app = std::make_unique<CLI::App>(
-      "The edges of SHAPE, a DRAW shape taken in millimetres, numbered 1..N as ergpath numbers the same shape "
-      "read from a STEP file: type, end points (mm), length (m), name. Prints the table; the Tcl result is the "
+      "The edges of SHAPE, a DRAW shape taken in millimetres, numbered 1..N as ergpath numbers the same "
+      "shape "
+      "read from a STEP file: type, end points (mm), length (m), name. Prints the table; the Tcl result is "
+      "the "
       "number of edges, or the JSON listing (not printed) with --format json.",
       "ergpath_list");
-  app->add_option("SHAPE", a.shape, "DRAW shape: an edge, a wire, a compound of edges, a solid, ...")->required();
+  app->add_option("SHAPE", a.shape, "DRAW shape: an edge, a wire, a compound of edges, a solid, ...")
+      ->required();
   app->add_option("--format", a.format, "text or json")->check(CLI::IsMember({"text", "json"}));
   return app;
 }

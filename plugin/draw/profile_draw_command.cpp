@@ -29,7 +29,8 @@ std::unique_ptr<CLI::App> profile_options(ProfileCommandArgs& a) {
       "list of {s_m work_J tangential_force_N} triples, one per station, or the JSON / CSV text (not "
       "printed) with --format json / csv.",
       "ergpath_profile");
-  app->add_option("SHAPE", a.shape, "DRAW shape: an edge, a wire, a compound of edges, a solid, ...")->required();
+  app->add_option("SHAPE", a.shape, "DRAW shape: an edge, a wire, a compound of edges, a solid, ...")
+      ->required();
   cli::add_profile_options(*app, a.profile);
   return app;
 }
@@ -38,7 +39,8 @@ std::string tcl_triples(const std::vector<ProfilePoint>& points) {
   std::string out;
   for (const ProfilePoint& p : points) {
     if (!out.empty()) out += ' ';
-    out += "{" + tcl_number(p.s_m) + " " + tcl_number(p.work_J) + " " + tcl_number(p.tangential_force_N) + "}";
+    out +=
+        "{" + tcl_number(p.s_m) + " " + tcl_number(p.work_J) + " " + tcl_number(p.tangential_force_N) + "}";
   }
   return out;
 }
@@ -50,7 +52,8 @@ int profile_command(Draw_Interpretor& di, Standard_Integer argc, const char** ar
     const occt::StepModel model = session_model(a.shape);
     cli::WorkArgs& w = a.profile.work;
     w.path.model = model.file();
-    const std::optional<Path> own = app->get_option("--path")->count() == 0 ? own_path(model, w.path) : std::nullopt;
+    const std::optional<Path> own =
+        app->get_option("--path")->count() == 0 ? own_path(model, w.path) : std::nullopt;
     std::ostringstream report;
     const std::vector<ProfilePoint> points = own ? cli::run_profile_on_path(model, *own, a.profile, report)
                                                  : cli::run_profile(model, a.profile, report);

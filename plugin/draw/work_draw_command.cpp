@@ -28,7 +28,8 @@ std::unique_ptr<CLI::App> work_options(WorkCommandArgs& a) {
       "selects edges by the numbers ergpath_list shows. Prints the report; the Tcl result is the total work "
       "in joules, or the JSON report (not printed) with --format json.",
       "ergpath_work");
-  app->add_option("SHAPE", a.shape, "DRAW shape: an edge, a wire, a compound of edges, a solid, ...")->required();
+  app->add_option("SHAPE", a.shape, "DRAW shape: an edge, a wire, a compound of edges, a solid, ...")
+      ->required();
   cli::add_work_options(*app, a.work);
   return app;
 }

@@ -1,17 +1,17 @@
 // model_from_shape and path_of_shape (kernel_adapters/occt/shape_model.h): the DRAW plugin's view of a
 // session shape must number edges as StepModel::read does and travel wires in their own order.
+#include <gtest/gtest.h>
 #include <BRepBuilderAPI_MakeEdge.hxx>
 #include <BRepBuilderAPI_MakePolygon.hxx>
+#include <BRepBuilderAPI_MakeVertex.hxx>
 #include <BRepBuilderAPI_MakeWire.hxx>
 #include <BRep_Builder.hxx>
-#include <BRepBuilderAPI_MakeVertex.hxx>
 #include <STEPControl_Reader.hxx>
 #include <TopoDS.hxx>
 #include <TopoDS_Compound.hxx>
 #include <TopoDS_Wire.hxx>
 #include <gp_Ax2.hxx>
 #include <gp_Circ.hxx>
-#include <gtest/gtest.h>
 
 #include <cmath>
 #include <filesystem>

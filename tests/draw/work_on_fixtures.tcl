@@ -41,8 +41,9 @@ check_near "lift track wire, --path edges:3,4 (level): no gravity work" [json_to
 check_near "lift track wire, --path edges:3,4: length pi/2 x 0.25 m + 0.4 m" [json_top_number $json length_m] \
     [expr {$PI / 2 * 0.25 + 0.4}] [expr {$rel * 0.8}]
 
-# Ellipse, semi-axes a = 300, b = 100 mm: perimeter 4 a E(e^2), e^2 = 1 - b^2/a^2 = 8/9 (DLMF 19.9.9);
-# 4 * 300 * E(8/9) = 1336.48932205552582 mm computed with mpmath (ellipe) at 30 digits.
+# Ellipse, semi-axes a = 300, b = 100 mm: perimeter 4 a E(e) (DLMF 19.9.9) with E of
+# parameter m = e^2 = 1 - b^2/a^2 = 8/9, as mpmath.ellipe(m) takes it:
+# 4 * 300 * ellipe(8/9) = 1336.48932205552582 mm (mpmath at 30 digits).
 testreadstep [fixture ellipse_300x100.stp] ell
 set json [ergpath_work ell --field {0, 0, 0} --format json]
 check_near "ellipse 300 x 100 mm fixture: perimeter is 4 a E(e^2)" [json_top_number $json length_m] \

@@ -72,8 +72,9 @@ set want [expr {-4 * $g_n * 0.06 - 0.5 * 200 * ($r2 - $r1)}]
 check_near "Bezier edge: gravity + anchored spring give the potential difference" $w $want \
     [expr {$rel * abs($want)}]
 
-# Ellipse with semi-axes a = 150, b = 50 mm: perimeter 4 a E(e^2), e^2 = 1 - b^2/a^2 (DLMF 19.9.9);
-# 4 * 150 * E(8/9) = 668.244661027762911 mm computed with mpmath (ellipe) at 30 digits.
+# Ellipse with semi-axes a = 150, b = 50 mm: perimeter 4 a E(e) (DLMF 19.9.9) with E of
+# parameter m = e^2 = 1 - b^2/a^2 = 8/9, as mpmath.ellipe(m) takes it:
+# 4 * 150 * ellipe(8/9) = 668.244661027762911 mm (mpmath at 30 digits).
 ellipse el 0 0 0 150 50
 mkedge ee el
 set json [ergpath_work ee --field {0, 0, 0} --format json]
