@@ -148,8 +148,9 @@ bool read_with_xde(StepModel::Impl& impl, XdeEdgeLabels& labels) {
     }
   } closer{app, doc};
 
-  Interface_Static::SetIVal("read.stepcaf.subshapes.name", 1);
   STEPCAFControl_Reader reader;
+  // The XDE settings exist only once an XDE reader has initialised its controller.
+  Interface_Static::SetIVal("read.stepcaf.subshapes.name", 1);
   reader.SetNameMode(Standard_True);
   if (reader.ReadFile(impl.file.c_str()) != IFSelect_RetDone) {
     unreadable(impl.file, "the STEP reader rejected the file (syntax or schema error)");
@@ -212,6 +213,18 @@ EdgeInfo describe(const TopoDS_Edge& edge, int index) {
   return info;
 }
 
+// Fills impl.info (and the instance paths) for the edges already numbered in impl.edges.
+void describe_edges(StepModel::Impl& impl, const XdeEdgeLabels& labels) {
+  impl.info.reserve(impl.edges.Extent());
+  for (int i = 1; i <= impl.edges.Extent(); ++i) {
+    EdgeInfo info = describe(TopoDS::Edge(impl.edges(i)), i);
+    if (static_cast<std::size_t>(i) <= labels.name.size()) info.name = labels.name[i - 1];
+    impl.info.push_back(std::move(info));
+  }
+  impl.instance = labels.instance;
+  impl.instance.resize(impl.info.size());
+}
+
 }  // namespace
 
 StepModel::StepModel() : impl_(std::make_unique<Impl>()) {}
@@ -242,18 +255,28 @@ StepModel StepModel::read(const std::string& file) {
       read_plain(impl);
     }
     if (impl.edges.Extent() == 0) throw Error(ErrorKind::EmptyModel, file + ": the model holds no edges");
-    impl.info.reserve(impl.edges.Extent());
-    for (int i = 1; i <= impl.edges.Extent(); ++i) {
-      EdgeInfo info = describe(TopoDS::Edge(impl.edges(i)), i);
-      if (static_cast<std::size_t>(i) <= labels.name.size()) info.name = labels.name[i - 1];
-      impl.info.push_back(std::move(info));
-    }
-    impl.instance = labels.instance;
-    impl.instance.resize(impl.info.size());
+    describe_edges(impl, labels);
   } catch (const Standard_Failure& e) {
     std::string what = e.GetMessageString() ? e.GetMessageString() : "";
     unreadable(file, std::string("the kernel failed while reading (") + e.DynamicType()->Name() +
                          (what.empty() ? "" : ": " + what) + ")");
+  }
+  return model;
+}
+
+StepModel StepModel::from_impl(std::unique_ptr<Impl> impl) {
+  StepModel model;
+  model.impl_ = std::move(impl);
+  Impl& i = *model.impl_;
+  try {
+    OCC_CATCH_SIGNALS
+    i.edges.Clear();
+    i.info.clear();
+    if (!i.shape.IsNull()) TopExp::MapShapes(i.shape, TopAbs_EDGE, i.edges);
+    if (i.edges.Extent() == 0) throw Error(ErrorKind::EmptyModel, i.file + ": the shape holds no edges");
+    describe_edges(i, XdeEdgeLabels{});
+  } catch (const Standard_Failure& e) {
+    unreadable(i.file, std::string("the kernel failed on the shape (") + e.DynamicType()->Name() + ")");
   }
   return model;
 }

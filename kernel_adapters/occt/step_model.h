@@ -58,6 +58,10 @@ class StepModel {
   struct Impl;
   const Impl& impl() const { return *impl_; }
 
+  /// Adapter-internal factory behind model_from_shape (shape_model.h): numbers and describes the edges
+  /// of impl->shape exactly as read() does. Throws Error(EmptyModel) naming impl->file when it has none.
+  static StepModel from_impl(std::unique_ptr<Impl> impl);
+
  private:
   StepModel();
   std::unique_ptr<Impl> impl_;
