@@ -127,6 +127,8 @@ void read_header(STEPControl_Reader& reader, StepModel::Impl& impl) {
   if (fs.IsNull() || fs->NbSchemaIdentifiers() < 1 || fs->SchemaIdentifiersValue(1).IsNull()) return;
   std::string id = fs->SchemaIdentifiersValue(1)->ToCString();
   id = id.substr(0, id.find_first_of(" {"));
+  while (!id.empty() && id.back() == '.') id.pop_back();  // some writers end the identifier with '.'
+
   if (id.empty()) return;
   impl.schema = id;
   const std::string u = upper(id);

@@ -99,7 +99,11 @@ XdeEdgeLabels read_xde_labels(const Handle(TDocStd_Document)& doc, const TopTool
   ByTShape placed;
   TDF_LabelSequence roots;
   tool->GetFreeShapes(roots);
-  for (int i = 1; i <= roots.Length(); ++i) walk(tool, roots.Value(i), TopLoc_Location(), "", placed);
+  for (int i = 1; i <= roots.Length(); ++i) {
+    const TDF_Label& root = roots.Value(i);
+    if (!XCAFDoc_ShapeTool::IsAssembly(root)) continue;
+    walk(tool, root, TopLoc_Location(), label_name(root).value_or("assembly_" + std::to_string(i)), placed);
+  }
 
   for (int i = 1; i <= edges.Extent(); ++i) {
     const TopoDS_Shape& e = edges(i);
