@@ -2,11 +2,11 @@
 
 #include <BRepAdaptor_Curve.hxx>
 #include <BRep_Tool.hxx>
+#include <GeomAdaptor_Curve.hxx>
 #include <Geom_BSplineCurve.hxx>
 #include <Geom_BezierCurve.hxx>
 #include <Geom_OffsetCurve.hxx>
 #include <Geom_TrimmedCurve.hxx>
-#include <GeomAdaptor_Curve.hxx>
 #include <Standard_Failure.hxx>
 #include <TopExp.hxx>
 #include <TopTools_IndexedDataMapOfShapeListOfShape.hxx>
@@ -25,12 +25,13 @@ namespace ergpath::occt {
 
 namespace {
 
-std::vector<int> ancestors(const TopTools_IndexedDataMapOfShapeListOfShape& map, const TopTools_IndexedMapOfShape& index,
-                           const TopoDS_Shape& edge) {
+std::vector<int> ancestors(const TopTools_IndexedDataMapOfShapeListOfShape& map,
+                           const TopTools_IndexedMapOfShape& index, const TopoDS_Shape& edge) {
   std::vector<int> out;
   const int k = map.FindIndex(edge);
   if (k == 0) return out;
-  for (TopTools_ListOfShape::Iterator it(map(k)); it.More(); it.Next()) out.push_back(index.FindIndex(it.Value()));
+  for (TopTools_ListOfShape::Iterator it(map(k)); it.More(); it.Next())
+    out.push_back(index.FindIndex(it.Value()));
   std::sort(out.begin(), out.end());
   out.erase(std::unique(out.begin(), out.end()), out.end());
   return out;
@@ -39,7 +40,8 @@ std::vector<int> ancestors(const TopTools_IndexedDataMapOfShapeListOfShape& map,
 void curve_details(const TopoDS_Edge& edge, EdgeDetails& d) {
   double f = 0.0, l = 0.0;
   Handle(Geom_Curve) c = BRep_Tool::Curve(edge, f, l);
-  while (!c.IsNull() && c->IsKind(STANDARD_TYPE(Geom_TrimmedCurve))) c = Handle(Geom_TrimmedCurve)::DownCast(c)->BasisCurve();
+  while (!c.IsNull() && c->IsKind(STANDARD_TYPE(Geom_TrimmedCurve)))
+    c = Handle(Geom_TrimmedCurve)::DownCast(c)->BasisCurve();
   if (c.IsNull()) return;
   if (auto bs = Handle(Geom_BSplineCurve)::DownCast(c)) {
     d.degree = bs->Degree();
@@ -52,12 +54,24 @@ void curve_details(const TopoDS_Edge& edge, EdgeDetails& d) {
   } else if (auto off = Handle(Geom_OffsetCurve)::DownCast(c)) {
     GeomAdaptor_Curve basis(off->BasisCurve());
     switch (basis.GetType()) {
-      case GeomAbs_Line: d.basis = CurveType::Line; break;
-      case GeomAbs_Circle: d.basis = CurveType::Circle; break;
-      case GeomAbs_Ellipse: d.basis = CurveType::Ellipse; break;
-      case GeomAbs_BezierCurve: d.basis = CurveType::Bezier; break;
-      case GeomAbs_BSplineCurve: d.basis = CurveType::BSpline; break;
-      default: d.basis = CurveType::Other; break;
+      case GeomAbs_Line:
+        d.basis = CurveType::Line;
+        break;
+      case GeomAbs_Circle:
+        d.basis = CurveType::Circle;
+        break;
+      case GeomAbs_Ellipse:
+        d.basis = CurveType::Ellipse;
+        break;
+      case GeomAbs_BezierCurve:
+        d.basis = CurveType::Bezier;
+        break;
+      case GeomAbs_BSplineCurve:
+        d.basis = CurveType::BSpline;
+        break;
+      default:
+        d.basis = CurveType::Other;
+        break;
     }
   }
 }
@@ -100,12 +114,14 @@ Inventory edge_inventory(const StepModel& model) {
 }
 
 CurveType parse_curve_type(const std::string& name) {
-  for (CurveType t : {CurveType::Line, CurveType::Circle, CurveType::Ellipse, CurveType::Hyperbola, CurveType::Parabola,
-                      CurveType::Bezier, CurveType::BSpline, CurveType::Offset, CurveType::Other}) {
+  for (CurveType t :
+       {CurveType::Line, CurveType::Circle, CurveType::Ellipse, CurveType::Hyperbola, CurveType::Parabola,
+        CurveType::Bezier, CurveType::BSpline, CurveType::Offset, CurveType::Other}) {
     if (name == to_string(t)) return t;
   }
-  throw Error(ErrorKind::BadOption, "unknown edge type '" + name +
-                                        "' (use line, circle, ellipse, hyperbola, parabola, bezier, bspline, offset, other)");
+  throw Error(ErrorKind::BadOption,
+              "unknown edge type '" + name +
+                  "' (use line, circle, ellipse, hyperbola, parabola, bezier, bspline, offset, other)");
 }
 
 bool glob_match(const std::string& pattern, const std::string& text) {
@@ -134,12 +150,15 @@ std::vector<int> filter_edges(const StepModel& model, const EdgeFilter& filter) 
   check_length("--max-length", filter.max_length_m);
   check_length("--within", filter.within_mm);
   if (filter.within_mm && !filter.near_mm) throw Error(ErrorKind::BadOption, "--within needs --near X,Y,Z");
-  if (filter.near_mm && !is_finite(*filter.near_mm)) throw Error(ErrorKind::BadOption, "--near needs finite coordinates");
+  if (filter.near_mm && !is_finite(*filter.near_mm))
+    throw Error(ErrorKind::BadOption, "--near needs finite coordinates");
   int nearest = 0;
   if (filter.near_mm && !filter.within_mm) nearest = nearest_edge(model, *filter.near_mm);
   std::vector<int> out;
   for (const EdgeInfo& e : model.edges()) {
-    if (!filter.types.empty() && std::find(filter.types.begin(), filter.types.end(), e.type) == filter.types.end()) continue;
+    if (!filter.types.empty() &&
+        std::find(filter.types.begin(), filter.types.end(), e.type) == filter.types.end())
+      continue;
     if (!filter.name_pattern.empty() && !(e.name && glob_match(filter.name_pattern, *e.name))) continue;
     if (filter.min_length_m && e.length_m < *filter.min_length_m) continue;
     if (filter.max_length_m && e.length_m > *filter.max_length_m) continue;

@@ -13,19 +13,19 @@
 namespace ergpath::occt {
 
 struct EdgeDetails {
-  int index = 0;                     // the model edge (see StepModel::edge for type, ends, length, name)
-  std::optional<int> degree;         // Bezier/B-spline degree
-  std::optional<int> poles;          // Bezier/B-spline pole count
-  std::optional<bool> rational;      // Bezier/B-spline: weights present
-  std::optional<CurveType> basis;    // offset curve: the type of its basis curve
-  bool seam = false;                 // bounds one of its faces twice (closed surface's seam)
-  std::vector<int> faces;            // faces bounded by the edge, ascending
-  std::vector<int> wires;            // wires containing the edge, ascending
+  int index = 0;                        // the model edge (see StepModel::edge for type, ends, length, name)
+  std::optional<int> degree;            // Bezier/B-spline degree
+  std::optional<int> poles;             // Bezier/B-spline pole count
+  std::optional<bool> rational;         // Bezier/B-spline: weights present
+  std::optional<CurveType> basis;       // offset curve: the type of its basis curve
+  bool seam = false;                    // bounds one of its faces twice (closed surface's seam)
+  std::vector<int> faces;               // faces bounded by the edge, ascending
+  std::vector<int> wires;               // wires containing the edge, ascending
   std::optional<std::string> instance;  // assembly instance path, e.g. "lift_cell/carrier_2"
 };
 
 struct Inventory {
-  std::vector<EdgeDetails> edges;    // one per model edge, index order
+  std::vector<EdgeDetails> edges;  // one per model edge, index order
   int face_count = 0;
   int wire_count = 0;
 };
@@ -34,10 +34,10 @@ struct Inventory {
 Inventory edge_inventory(const StepModel& model);
 
 struct EdgeFilter {
-  std::vector<CurveType> types;      // empty: any type
-  std::string name_pattern;          // glob ('*' any run, '?' one character); empty: any; set: named only
+  std::vector<CurveType> types;  // empty: any type
+  std::string name_pattern;      // glob ('*' any run, '?' one character); empty: any; set: named only
   std::optional<double> min_length_m, max_length_m;
-  std::optional<Vec3> near_mm;       // with within_mm: edges at most that far; alone: the nearest edge
+  std::optional<Vec3> near_mm;  // with within_mm: edges at most that far; alone: the nearest edge
   std::optional<double> within_mm;
 };
 

@@ -46,7 +46,7 @@ struct Placed {
 
 using ByTShape = std::map<const TopoDS_TShape*, std::vector<Placed>>;
 
-void walk(const Handle(XCAFDoc_ShapeTool)& tool, const TDF_Label& label, const TopLoc_Location& loc,
+void walk(const Handle(XCAFDoc_ShapeTool) & tool, const TDF_Label& label, const TopLoc_Location& loc,
           const std::string& path, ByTShape& out) {
   if (XCAFDoc_ShapeTool::IsAssembly(label)) {
     TDF_LabelSequence components;
@@ -85,7 +85,7 @@ void collect_names(const TDF_Label& label, std::map<const TopoDS_TShape*, std::s
 
 }  // namespace
 
-XdeEdgeLabels read_xde_labels(const Handle(TDocStd_Document)& doc, const TopTools_IndexedMapOfShape& edges) {
+XdeEdgeLabels read_xde_labels(const Handle(TDocStd_Document) & doc, const TopTools_IndexedMapOfShape& edges) {
   XdeEdgeLabels out;
   out.name.resize(edges.Extent());
   out.instance.resize(edges.Extent());

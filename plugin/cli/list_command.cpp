@@ -19,10 +19,10 @@ namespace {
 struct ListArgs {
   std::string model;
   std::string format = "text";
-  std::string types;    // comma-separated type names
-  std::string name;     // glob
+  std::string types;  // comma-separated type names
+  std::string name;   // glob
   std::optional<double> min_length_m, max_length_m, within_mm;
-  std::string near;     // "X,Y,Z" mm
+  std::string near;  // "X,Y,Z" mm
 };
 
 std::string number(double v) {
@@ -104,14 +104,17 @@ int run_list(const ListArgs& a, std::ostream& out) {
 
 void add_list_command(CLI::App& app, std::vector<Command>& commands) {
   auto args = std::make_shared<ListArgs>();
-  CLI::App* cmd = app.add_subcommand("list", "List a STEP model's edges: index, type, ends, length, name, topology");
+  CLI::App* cmd =
+      app.add_subcommand("list", "List a STEP model's edges: index, type, ends, length, name, topology");
   cmd->add_option("MODEL", args->model, "STEP file (AP203/AP214/AP242)")->required();
   cmd->add_option("--format", args->format, "text or json")->check(CLI::IsMember({"text", "json"}));
-  cmd->add_option("--type", args->types, "Only these types, comma-separated (line, circle, ..., bspline, offset)");
+  cmd->add_option("--type", args->types,
+                  "Only these types, comma-separated (line, circle, ..., bspline, offset)");
   cmd->add_option("--name", args->name, "Only edges whose name matches this pattern ('*' and '?' wildcards)");
   cmd->add_option("--min-length", args->min_length_m, "Only edges at least this long, m");
   cmd->add_option("--max-length", args->max_length_m, "Only edges at most this long, m");
-  cmd->add_option("--near", args->near, "X,Y,Z in mm: the edge nearest this point (with --within: all edges that close)");
+  cmd->add_option("--near", args->near,
+                  "X,Y,Z in mm: the edge nearest this point (with --within: all edges that close)");
   cmd->add_option("--within", args->within_mm, "With --near: every edge within this distance, mm");
   commands.push_back({cmd, [args](std::ostream& out) { return run_list(*args, out); }});
 }

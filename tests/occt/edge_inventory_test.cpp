@@ -33,8 +33,8 @@ TEST(EdgeInventory, TheZooHasOneEdgeOfEachKernelCurveKind) {
   ASSERT_EQ(m.edge_count(), 10);
   std::map<CurveType, int> count;
   for (const EdgeInfo& e : m.edges()) ++count[e.type];
-  for (CurveType t : {CurveType::Line, CurveType::Circle, CurveType::Ellipse, CurveType::Hyperbola, CurveType::Parabola,
-                      CurveType::Offset}) {
+  for (CurveType t : {CurveType::Line, CurveType::Circle, CurveType::Ellipse, CurveType::Hyperbola,
+                      CurveType::Parabola, CurveType::Offset}) {
     EXPECT_EQ(count[t], 1) << to_string(t);
   }
   // Bezier (written as a B-spline), B-spline, rational B-spline and trimmed B-spline.

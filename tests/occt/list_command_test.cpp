@@ -33,7 +33,8 @@ TEST(ListCommand, JsonCarriesTheAgreedKeysAndASummary) {
   const json j = json::parse(r.out);
   ASSERT_EQ(j.at("edges").size(), 4u);
   for (const json& e : j.at("edges")) {
-    for (const char* key : {"index", "type", "start_mm", "end_mm", "length_m", "name"}) EXPECT_TRUE(e.contains(key)) << key;
+    for (const char* key : {"index", "type", "start_mm", "end_mm", "length_m", "name"})
+      EXPECT_TRUE(e.contains(key)) << key;
     EXPECT_TRUE(e.at("name").is_null());
     EXPECT_EQ(e.at("start_mm").size(), 3u);
   }
@@ -46,7 +47,8 @@ TEST(ListCommand, JsonCarriesTheAgreedKeysAndASummary) {
 }
 
 TEST(ListCommand, NamesAppearAndFiltersNarrowTheList) {
-  const CliRun r = list({fixture("named_assembly.stp"), "--format", "json", "--name", "carrier_track", "--type", "circle"});
+  const CliRun r = list(
+      {fixture("named_assembly.stp"), "--format", "json", "--name", "carrier_track", "--type", "circle"});
   ASSERT_EQ(r.code, 0) << r.err;
   const json j = json::parse(r.out);
   ASSERT_EQ(j.at("edges").size(), 2u);
