@@ -23,7 +23,7 @@ constexpr double kFullPeriodRelTol = 1e-10;
 // converge. Folding it into its neighbour changes the piece's integral by less than 1e-9 relative.
 constexpr double kMinSpanRel = 1e-9;
 
-void add_periodic_knots(const Handle(Geom_BSplineCurve)& bs, double a, double b, std::vector<double>& out) {
+void add_periodic_knots(const Handle(Geom_BSplineCurve) & bs, double a, double b, std::vector<double>& out) {
   const double k0 = bs->FirstParameter();
   const double period = bs->LastParameter() - k0;
   for (int i = 1; i <= bs->NbKnots(); ++i) {
@@ -74,15 +74,24 @@ std::vector<double> knots_inside(const BRepAdaptor_Curve& c, double a, double b)
 
 CurveType curve_type_of(const BRepAdaptor_Curve& adaptor) {
   switch (adaptor.GetType()) {
-    case GeomAbs_Line: return CurveType::Line;
-    case GeomAbs_Circle: return CurveType::Circle;
-    case GeomAbs_Ellipse: return CurveType::Ellipse;
-    case GeomAbs_Hyperbola: return CurveType::Hyperbola;
-    case GeomAbs_Parabola: return CurveType::Parabola;
-    case GeomAbs_BezierCurve: return CurveType::Bezier;
-    case GeomAbs_BSplineCurve: return CurveType::BSpline;
-    case GeomAbs_OffsetCurve: return CurveType::Offset;
-    default: return CurveType::Other;
+    case GeomAbs_Line:
+      return CurveType::Line;
+    case GeomAbs_Circle:
+      return CurveType::Circle;
+    case GeomAbs_Ellipse:
+      return CurveType::Ellipse;
+    case GeomAbs_Hyperbola:
+      return CurveType::Hyperbola;
+    case GeomAbs_Parabola:
+      return CurveType::Parabola;
+    case GeomAbs_BezierCurve:
+      return CurveType::Bezier;
+    case GeomAbs_BSplineCurve:
+      return CurveType::BSpline;
+    case GeomAbs_OffsetCurve:
+      return CurveType::Offset;
+    default:
+      return CurveType::Other;
   }
 }
 
@@ -128,8 +137,13 @@ EdgeCurve::EdgeCurve(const TopoDS_Edge& edge) : edge_(edge), adaptor_(edge) {
 }
 
 EdgeCurve::EdgeCurve(const EdgeCurve& other)
-    : Curve(), edge_(other.edge_), adaptor_(other.edge_), first_(other.first_), last_(other.last_),
-      breaks_(other.breaks_), structure_(other.structure_) {}
+    : Curve(),
+      edge_(other.edge_),
+      adaptor_(other.edge_),
+      first_(other.first_),
+      last_(other.last_),
+      breaks_(other.breaks_),
+      structure_(other.structure_) {}
 
 void EdgeCurve::d1(double t, Vec3& p, Vec3& v) const {
   gp_Pnt P;

@@ -15,9 +15,9 @@
 namespace ergpath::occt {
 
 struct EdgeInfo {
-  int index = 0;                    // 1-based, the kernel's unique-edge map order (stable per file)
+  int index = 0;  // 1-based, the kernel's unique-edge map order (stable per file)
   CurveType type = CurveType::Other;
-  Vec3 start_mm, end_mm;            // at the edge's first and last parameter
+  Vec3 start_mm, end_mm;  // at the edge's first and last parameter
   double length_m = 0.0;
   std::optional<std::string> name;  // STEP name, when the file carries one
   bool degenerated = false;         // no 3-D curve; skipped when integrating

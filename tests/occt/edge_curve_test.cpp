@@ -49,8 +49,10 @@ void expect_near(const Vec3& p, double x, double y, double z, double tol = kEval
   EXPECT_NEAR(p.z, z, tol);
 }
 
-TopoDS_Edge curve_edge(const Handle(Geom_Curve)& c) { return BRepBuilderAPI_MakeEdge(c); }
-TopoDS_Edge curve_edge(const Handle(Geom_Curve)& c, double a, double b) { return BRepBuilderAPI_MakeEdge(c, a, b); }
+TopoDS_Edge curve_edge(const Handle(Geom_Curve) & c) { return BRepBuilderAPI_MakeEdge(c); }
+TopoDS_Edge curve_edge(const Handle(Geom_Curve) & c, double a, double b) {
+  return BRepBuilderAPI_MakeEdge(c, a, b);
+}
 
 Handle(Geom_BSplineCurve) cubic_with_knots() {
   TColgp_Array1OfPnt p(1, 6);

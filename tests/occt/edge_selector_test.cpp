@@ -64,8 +64,8 @@ TEST_F(LiftTrack, OutOfRangeIndicesSayTheValidRange) {
 }
 
 TEST_F(LiftTrack, TextThatDoesNotParseIsABadSelector) {
-  for (const char* s : {"", "edge:", "edge:abc", "edge:-1", "edges:1,,2", "bogus:1", "3", "near:1,2", "near:1,2,x",
-                        "all,4", "name:\"open", "edge:1.5", "near:1e999,0,0"}) {
+  for (const char* s : {"", "edge:", "edge:abc", "edge:-1", "edges:1,,2", "bogus:1", "3", "near:1,2",
+                        "near:1,2,x", "all,4", "name:\"open", "edge:1.5", "near:1e999,0,0"}) {
     EXPECT_EQ(kind_of([&] { select_edges(m(), s); }), ErrorKind::BadSelector) << "'" << s << "'";
   }
 }

@@ -18,7 +18,8 @@ constexpr double kSameGeometryTol = 1e-12;
 TEST(Fixtures, RegeneratedFilesMatchTheCommittedOnes) {
   const std::filesystem::path out = std::filesystem::path(ERGPATH_BINARY_DIR) / "fixtures_regenerated";
   std::filesystem::create_directories(out);
-  const std::string cmd = std::string("\"") + ERGPATH_MAKE_FIXTURES + "\" \"" + out.string() + "\" > /dev/null";
+  const std::string cmd =
+      std::string("\"") + ERGPATH_MAKE_FIXTURES + "\" \"" + out.string() + "\" > /dev/null";
   ASSERT_EQ(std::system(cmd.c_str()), 0) << cmd;
   int files = 0;
   for (const auto& entry : std::filesystem::directory_iterator(out)) {

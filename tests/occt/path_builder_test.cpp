@@ -42,7 +42,8 @@ double path_length_mm(const Path& p) {
 
 void expect_continuous(const Path& p) {
   for (std::size_t i = 0; i + 1 < p.segments.size(); ++i) {
-    EXPECT_LT(distance(travel_end(p.segments[i]), travel_start(p.segments[i + 1])), kJoinTolMm) << "after segment " << i;
+    EXPECT_LT(distance(travel_end(p.segments[i]), travel_start(p.segments[i + 1])), kJoinTolMm)
+        << "after segment " << i;
   }
   if (p.closed) {
     EXPECT_LT(distance(travel_end(p.segments.back()), travel_start(p.segments.front())), kJoinTolMm);
@@ -79,8 +80,8 @@ TEST(BuildPath, CirculationAroundTheSlotIsTwiceItsArea) {
   const double area_mm2 = 300.0 * 160.0 + M_PI * 80.0 * 80.0;
   const double expected = 2.0 * area_mm2 * 1e-3;
   EXPECT_NEAR(work_J(p, "-y, x, 0"), expected, kWorkRel * expected);
-  EXPECT_NEAR(work_J(build_path(m, select_edges(m, "all"), {true, std::nullopt, 1e-3}), "-y, x, 0"), -expected,
-              kWorkRel * expected);
+  EXPECT_NEAR(work_J(build_path(m, select_edges(m, "all"), {true, std::nullopt, 1e-3}), "-y, x, 0"),
+              -expected, kWorkRel * expected);
 }
 
 TEST(BuildPath, OpenChainInAnyOrderFollowsTheFirstSelectedEdge) {

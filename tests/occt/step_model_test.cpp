@@ -115,8 +115,10 @@ TEST(StepModel, ArcAndLineLengthsMatchClosedForms) {
 
 TEST(StepModel, FileUnitsAreReportedAndDoNotChangeLengths) {
   const StepModel ref = StepModel::read(fixture("lift_track_mm.stp"));
-  const std::pair<const char*, const char*> files[] = {
-      {"lift_track_in.stp", "inch"}, {"lift_track_m.stp", "m"}, {"lift_track_cm.stp", "cm"}, {"lift_track_ft.stp", "ft"}};
+  const std::pair<const char*, const char*> files[] = {{"lift_track_in.stp", "inch"},
+                                                       {"lift_track_m.stp", "m"},
+                                                       {"lift_track_cm.stp", "cm"},
+                                                       {"lift_track_ft.stp", "ft"}};
   for (const auto& [file, unit] : files) {
     const StepModel m = StepModel::read(fixture(file));
     EXPECT_EQ(m.file_unit(), unit) << file;
@@ -199,17 +201,20 @@ TEST(StepModel, TextThatIsNotStepIsUnreadable) {
   TempDir t;
   const std::string f = t.write("notes.stp", "solid cube\n  facet normal 0 0 1\nendsolid\n");
   EXPECT_EQ(kind_of([&] { StepModel::read(f); }), ErrorKind::UnreadableFile);
-  const std::string bin = t.write("binary.stp", std::string("\x7f" "ELF\x02\x01\x01\0\0\0", 10));
+  const std::string bin = t.write("binary.stp", std::string("\x7f"
+                                                            "ELF\x02\x01\x01\0\0\0",
+                                                            10));
   EXPECT_EQ(kind_of([&] { StepModel::read(bin); }), ErrorKind::UnreadableFile);
   EXPECT_EQ(kind_of([&] { StepModel::read(t.dir.string()); }), ErrorKind::UnreadableFile);
 }
 
 TEST(StepModel, MalformedDataSectionIsUnreadable) {
   TempDir t;
-  const std::string f = t.write("bad.stp",
-                                "ISO-10303-21;\nHEADER;\nFILE_DESCRIPTION((''),'2;1');\nFILE_NAME('','',(''),(''),'','','');\n"
-                                "FILE_SCHEMA(('AUTOMOTIVE_DESIGN'));\nENDSEC;\nDATA;\n#1 = CARTESIAN_POINT('',(0.,0.,;\n"
-                                "#2 = ((( ;\nENDSEC;\nEND-ISO-10303-21;\n");
+  const std::string f =
+      t.write("bad.stp",
+              "ISO-10303-21;\nHEADER;\nFILE_DESCRIPTION((''),'2;1');\nFILE_NAME('','',(''),(''),'','','');\n"
+              "FILE_SCHEMA(('AUTOMOTIVE_DESIGN'));\nENDSEC;\nDATA;\n#1 = CARTESIAN_POINT('',(0.,0.,;\n"
+              "#2 = ((( ;\nENDSEC;\nEND-ISO-10303-21;\n");
   EXPECT_EQ(kind_of([&] { StepModel::read(f); }), ErrorKind::UnreadableFile);
 }
 
