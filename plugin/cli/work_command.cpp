@@ -41,11 +41,13 @@ WorkResult run_work(const occt::StepModel& model, const WorkArgs& a, std::ostrea
   checked_field_spec(a);
   const occt::PathOptions popts = make_path_options(a.path);
   const std::vector<int> edges = occt::select_edges(model, a.path.selector);
-  return run_work_on_path(model, occt::build_path(model, edges, popts), a, out);
+  std::vector<std::string> notes;
+  const Path path = occt::build_path(model, edges, popts, &notes);
+  return run_work_on_path(model, path, a, out, notes);
 }
 
-WorkResult run_work_on_path(const occt::StepModel& model, const Path& path, const WorkArgs& a,
-                            std::ostream& out) {
+WorkResult run_work_on_path(const occt::StepModel& model, const Path& path, const WorkArgs& a, std::ostream& out,
+                            const std::vector<std::string>& notes) {
   const FieldSpec spec = checked_field_spec(a);
   IntegrationOptions iopts;
   iopts.rel_tol = a.tolerance;
@@ -67,6 +69,7 @@ WorkResult run_work_on_path(const occt::StepModel& model, const Path& path, cons
   ctx.model_unit_m = path.length_unit_m;
   ctx.field_length_unit = unit_name(spec.length_unit_m);
   ctx.rel_tol = a.tolerance;
+  ctx.notes = notes;
   if (a.curl_check) ctx.curl = estimate_curl(path, spec);
   if (a.format == "json") {
     out << report::work_json(r, ctx).dump(2) << "\n";

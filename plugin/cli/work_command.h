@@ -3,6 +3,7 @@
 
 #include <iosfwd>
 #include <string>
+#include <vector>
 
 #include "kernel_adapters/occt/step_model.h"
 #include "plugin/cli/field_options.h"
@@ -36,7 +37,8 @@ WorkResult run_work(const occt::StepModel& model, const WorkArgs& args, std::ost
 
 /// As run_work, along a path the caller has already built from `model` (e.g. a wire of a DRAW session
 /// in its own order); args.path only labels the report. Same errors, except those of path building.
+/// `notes` (e.g. skipped degenerated edges, a changed order) are printed under the report.
 WorkResult run_work_on_path(const occt::StepModel& model, const Path& path, const WorkArgs& args,
-                            std::ostream& out);
+                            std::ostream& out, const std::vector<std::string>& notes = {});
 
 }  // namespace ergpath::cli
