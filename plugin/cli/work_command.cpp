@@ -39,6 +39,7 @@ WorkResult run_work(const occt::StepModel& model, const WorkArgs& a, std::ostrea
 
   IntegrationOptions iopts;
   iopts.rel_tol = a.tolerance;
+  iopts.max_evaluations = a.max_evaluations;
   const WorkResult r = compute_work(path, spec, iopts);
   if (r.status == Status::ToleranceNotMet) {
     throw Error(ErrorKind::ToleranceNotMet,
@@ -69,6 +70,9 @@ void add_work_options(CLI::App& cmd, WorkArgs& args) {
                  "Largest gap between consecutive edges, mm (default 0.001)");
   add_field_options(cmd, args.field);
   cmd.add_option("--tolerance", args.tolerance, "Relative error target on the work (default 1e-10)");
+  cmd.add_option("--max-evaluations", args.max_evaluations,
+                 "Budget of field evaluations before giving up with exit code 3 (default 20000000)")
+      ->check(CLI::PositiveNumber);
   cmd.add_option("--format", args.format, "text or json")->check(CLI::IsMember({"text", "json"}));
 }
 

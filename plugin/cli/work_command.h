@@ -18,6 +18,7 @@ struct WorkArgs {
   PathCliOptions path;
   FieldOptions field;
   double tolerance = 1e-10;
+  long max_evaluations = 20000000;
   std::string format = "text";  // text or json
 };
 
