@@ -21,13 +21,15 @@ struct EdgeInfo {
   double length_m = 0.0;
   std::optional<std::string> name;  // STEP name, when the file carries one
   bool degenerated = false;         // no 3-D curve; skipped when integrating
-  bool closed = false;              // start and end coincide
+  bool closed = false;              // start and end coincide (same vertex, or within 1e-7 mm)
 };
 
 class StepModel {
  public:
   /// Reads a STEP file (AP203/AP214/AP242). Throws Error(UnreadableFile) for a missing, empty,
   /// truncated or non-STEP file and Error(EmptyModel) when it holds no edge; messages name the file.
+  /// Names come through XDE (with sub-shape names); a file XDE cannot transfer is read again without
+  /// names. Reads are serialized internally (the kernel's reader settings are process-wide).
   static StepModel read(const std::string& file);
 
   ~StepModel();
@@ -38,6 +40,8 @@ class StepModel {
   /// The file's own length unit as written ("mm", "inch", "m", ...), and its schema name.
   const std::string& file_unit() const;
   const std::string& schema() const;
+  /// The application protocol the schema belongs to: "AP203", "AP214", "AP242" or "unknown".
+  const std::string& application_protocol() const;
 
   int edge_count() const;
   /// Precondition 1 <= index <= edge_count().
