@@ -179,6 +179,7 @@ BatchSummary run_batch(const Manifest& manifest, const ModelLoader& loader, cons
   }
   s.distinct_models = models_needed.size();
 
+  if (options.on_planned) options.on_planned(todo.size());
   std::mutex finished_mutex;
   auto body = [&](const tbb::blocked_range<std::size_t>& range) {
     for (std::size_t k = range.begin(); k != range.end(); ++k) {

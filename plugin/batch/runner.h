@@ -32,6 +32,8 @@ struct RunOptions {
   /// Called once per case that ran, as soon as it finishes, never concurrently (completion order).
   /// An exception thrown here stops the batch and propagates out of run_batch.
   std::function<void(const CaseResult&)> on_finished;
+  /// Called once before any case runs with the number of cases that will run (after --resume skips).
+  std::function<void(std::size_t)> on_planned;
 };
 
 struct BatchSummary {
