@@ -148,4 +148,41 @@ double FieldEvaluator::potential(const Vec3& position) {
   return impl_->potential.Eval();
 }
 
+struct ScalarFieldEvaluator::Impl {
+  Variables vars;
+  mu::Parser parser;
+  bool uses_s = false;
+};
+
+ScalarFieldEvaluator::ScalarFieldEvaluator(const ScalarFieldSpec& spec) : impl_(std::make_unique<Impl>()) {
+  if (!(spec.length_unit_m > 0.0) || !std::isfinite(spec.length_unit_m)) {
+    throw Error(ErrorKind::BadOption, "field length unit must be a positive number of metres");
+  }
+  FieldSpec constants_only;
+  constants_only.constants = spec.constants;
+  bind(impl_->parser, impl_->vars, constants_only);
+  compile(impl_->parser, "density", spec.formula, 1);
+  for (const auto& [name, ptr] : impl_->parser.GetUsedVar()) {
+    (void)ptr;
+    if (name == "s") impl_->uses_s = true;
+  }
+}
+
+ScalarFieldEvaluator::~ScalarFieldEvaluator() = default;
+ScalarFieldEvaluator::ScalarFieldEvaluator(ScalarFieldEvaluator&&) noexcept = default;
+ScalarFieldEvaluator& ScalarFieldEvaluator::operator=(ScalarFieldEvaluator&&) noexcept = default;
+bool ScalarFieldEvaluator::uses_arc_length() const { return impl_->uses_s; }
+
+double ScalarFieldEvaluator::eval(const FieldPoint& q) {
+  Variables& v = impl_->vars;
+  v.x = q.position.x;
+  v.y = q.position.y;
+  v.z = q.position.z;
+  v.s = q.s;
+  v.tx = q.tangent.x;
+  v.ty = q.tangent.y;
+  v.tz = q.tangent.z;
+  return impl_->parser.Eval();
+}
+
 }  // namespace ergpath

@@ -65,4 +65,27 @@ class FieldEvaluator {
   std::unique_ptr<Impl> impl_;
 };
 
+/// A scalar density f for integrals of f ds: one expression, same variables and constants as a force field.
+struct ScalarFieldSpec {
+  std::string formula;
+  std::vector<std::pair<std::string, double>> constants;
+  double length_unit_m = 1.0;  // metres per length unit seen by the formula
+};
+
+/// Compiled scalar formula. Not thread-safe: one per thread.
+class ScalarFieldEvaluator {
+ public:
+  /// Throws Error: BadFormula (with the 1-based position), WrongComponentCount (not exactly one), BadConstant.
+  explicit ScalarFieldEvaluator(const ScalarFieldSpec& spec);
+  ~ScalarFieldEvaluator();
+  ScalarFieldEvaluator(ScalarFieldEvaluator&&) noexcept;
+  ScalarFieldEvaluator& operator=(ScalarFieldEvaluator&&) noexcept;
+  double eval(const FieldPoint& q);  // may be non-finite: the caller decides
+  bool uses_arc_length() const;
+
+ private:
+  struct Impl;
+  std::unique_ptr<Impl> impl_;
+};
+
 }  // namespace ergpath

@@ -1,30 +1,35 @@
 #include "work.h"
 
-#include <boost/math/quadrature/gauss.hpp>
-#include <boost/math/quadrature/gauss_kronrod.hpp>
-
 #include <algorithm>
 #include <cmath>
 #include <limits>
-#include <queue>
 #include <sstream>
 
 #include "error.h"
+#include "work_integrator.h"
 
 namespace ergpath {
 
+namespace detail {
+
 namespace {
 
-// Gauss-Kronrod 7/15 nodes and weights from Boost.Math (Kronrod 1965; Laurie 1997 for the computation).
-using Kronrod15 = boost::math::quadrature::gauss_kronrod<double, 15>;
-using Gauss7 = boost::math::quadrature::gauss<double, 7>;
+constexpr double kEps = std::numeric_limits<double>::epsilon();
+// Absolute floor for the length error, metres: far below any machined feature (a nanometre is 1e-9 m),
+// present only so that a zero-length path has a finite target.
+constexpr double kLengthFloor_m = 1e-15;
+// A potential or loop check fails when the discrepancy exceeds this multiple of the error budget: the
+// estimates are deliberately pessimistic, so a factor 10 flags real mismatches, not noise.
+constexpr double kCheckSafety = 10.0;
+// Round-off of a potential difference U(b) - U(a), relative to |U(a)| + |U(b)|: muParser evaluates in
+// double precision with a few dozen operations at most.
+constexpr double kPotentialRoundoff = 1000 * kEps;
 
-struct Sample {
-  double work = 0.0;     // F . dr/dt, J per unit t (total of all fields)
-  double length = 0.0;   // |dr/dt| in metres per unit t
-};
+enum Component : std::size_t { kWork = 0, kAbsWork = 1, kLength = 2, kFirstField = 3 };
 
-std::string where(const Segment& seg, double t, const Vec3& p) {
+}  // namespace
+
+std::string describe_point(const Segment& seg, double t, const Vec3& p) {
   std::ostringstream os;
   os.precision(12);
   os << "edge " << seg.edge << " at t=" << t << ", position (" << p.x << ", " << p.y << ", " << p.z
@@ -32,209 +37,212 @@ std::string where(const Segment& seg, double t, const Vec3& p) {
   return os.str();
 }
 
-class Integrand {
- public:
-  Integrand(const Path& path, const FieldSpec& spec, FieldEvaluator& field)
-      : path_(path), field_(field), forces_(field.count()),
-        to_field_(path.length_unit_m / spec.length_unit_m) {}
-
-  // Evaluates the integrand of segment `k` at parameter t; per-field work density goes to `per_field`.
-  Sample operator()(std::size_t k, double t, double* per_field) {
-    const Segment& seg = path_.segments[k];
-    Vec3 p, v;
-    seg.curve->d1(t, p, v);
-    const double sigma = seg.reversed ? -1.0 : 1.0;
-    const double speed = norm(v);
-    if (!is_finite(p) || !std::isfinite(speed)) {
-      throw Error(ErrorKind::NonFiniteField, "curve derivative is not finite on " + where(seg, t, p));
-    }
-    FieldPoint q;
-    q.position = to_field_ * p;
-    q.tangent = speed > 0.0 ? (sigma / speed) * v : Vec3{};
-    field_.eval(q, forces_.data());
-    Sample out;
-    const Vec3 dr = (sigma * path_.length_unit_m) * v;  // metres per unit t, in travel direction
-    for (std::size_t i = 0; i < forces_.size(); ++i) {
-      if (!is_finite(forces_[i])) {
-        throw Error(ErrorKind::NonFiniteField,
-                    "field '" + field_.name(i) + "' is not finite on " + where(seg, t, p));
-      }
-      per_field[i] = dot(forces_[i], dr);
-      out.work += per_field[i];
-    }
-    out.length = speed * path_.length_unit_m;
-    ++evaluations_;
-    return out;
+void check_options(const IntegrationOptions& o) {
+  if (!(o.rel_tol > 0.0 && o.rel_tol < 1.0)) {
+    throw Error(ErrorKind::BadOption, "relative tolerance must lie in (0, 1)");
   }
-
-  long evaluations() const { return evaluations_; }
-
- private:
-  const Path& path_;
-  FieldEvaluator& field_;
-  std::vector<Vec3> forces_;
-  double to_field_;
-  long evaluations_ = 0;
-};
-
-struct Interval {
-  std::size_t segment = 0;
-  double a = 0.0, b = 0.0;
-  double work = 0.0, work_err = 0.0, abs_work = 0.0;
-  double length = 0.0, length_err = 0.0;
-  std::vector<double> fields;
-  double priority = 0.0;
-};
-
-struct ByPriority {
-  bool operator()(const Interval& l, const Interval& r) const { return l.priority < r.priority; }
-};
-
-// One Gauss-Kronrod 7/15 application on [a, b] of segment k.
-Interval apply_rule(Integrand& f, std::size_t k, double a, double b, std::size_t nfields) {
-  const auto& xk = Kronrod15::abscissa();
-  const auto& wk = Kronrod15::weights();
-  const auto& wg = Gauss7::weights();
-  const double c = 0.5 * (a + b), h = 0.5 * (b - a);
-  Interval out;
-  out.segment = k;
-  out.a = a;
-  out.b = b;
-  out.fields.assign(nfields, 0.0);
-  std::vector<double> pf(nfields);
-  double gw = 0.0, gl = 0.0;
-  for (std::size_t i = 0; i < xk.size(); ++i) {
-    const int signs = i == 0 ? 1 : 2;
-    for (int side = 0; side < signs; ++side) {
-      const double t = side == 0 ? c + h * xk[i] : c - h * xk[i];
-      const Sample s = f(k, t, pf.data());
-      out.work += wk[i] * s.work;
-      out.abs_work += wk[i] * std::abs(s.work);
-      out.length += wk[i] * s.length;
-      for (std::size_t j = 0; j < nfields; ++j) out.fields[j] += wk[i] * pf[j];
-      if (i % 2 == 0) {  // Gauss-7 nodes are the even-indexed Kronrod-15 nodes (0 is the centre)
-        gw += wg[i / 2] * s.work;
-        gl += wg[i / 2] * s.length;
-      }
-    }
+  if (!(o.abs_tol_J >= 0.0) || !std::isfinite(o.abs_tol_J)) {
+    throw Error(ErrorKind::BadOption, "absolute tolerance must be a finite number >= 0");
   }
-  out.work *= h;
-  out.abs_work *= h;
-  out.length *= h;
-  for (double& v : out.fields) v *= h;
-  gw *= h;
-  gl *= h;
-  constexpr double kRound = 50 * std::numeric_limits<double>::epsilon();
-  out.work_err = std::max(std::abs(out.work - gw), kRound * out.abs_work);
-  out.length_err = std::max(std::abs(out.length - gl), kRound * out.length);
-  return out;
+  if (o.max_evaluations <= 0) throw Error(ErrorKind::BadOption, "evaluation budget must be positive");
 }
 
-}  // namespace
+std::vector<Span> window_spans(const Path& path, const ArcLength& arc, double from_m, double to_m,
+                               bool periodic_ok) {
+  std::vector<Span> spans;
+  if (path.segments.empty() || !(to_m > from_m)) return spans;
+  const PathLocation a = arc.locate(from_m), b = arc.locate(to_m);
+  for (std::size_t k = a.segment; k <= b.segment; ++k) {
+    const Segment& seg = path.segments[k];
+    const Curve& c = *seg.curve;
+    double lo = c.first(), hi = c.last();
+    // Travel runs lo -> hi on a forward segment and hi -> lo on a reversed one.
+    if (k == a.segment) (seg.reversed ? hi : lo) = a.t;
+    if (k == b.segment) (seg.reversed ? lo : hi) = b.t;
+    if (!(hi > lo)) continue;
+    const CurveStructure st = c.structure();
+    const std::vector<double> breaks = c.breaks();
+    const bool whole = lo == c.first() && hi == c.last();
+    double left = lo;
+    for (double br : breaks) {
+      if (br <= left || br >= hi) continue;
+      spans.push_back({k, left, br, false, st.polynomial && !st.rational});
+      left = br;
+    }
+    const bool periodic = periodic_ok && whole && breaks.empty() && st.full_period;
+    spans.push_back({k, left, hi, periodic, st.polynomial && !st.rational});
+  }
+  return spans;
+}
 
-WorkResult compute_work(const Path& path, const FieldSpec& spec, const IntegrationOptions& options) {
-  if (!(options.rel_tol > 0.0) || !(options.abs_tol_J >= 0.0)) {
-    throw Error(ErrorKind::BadOption, "tolerance must be positive");
+WorkIntegrator::WorkIntegrator(const Path& path, const FieldSpec& spec, const IntegrationOptions& options)
+    : path_(path), spec_(spec), options_(options), field_(spec), arc_(path),
+      forces_(field_.count()), per_segment_(path.segments.size(), 0),
+      to_field_(path.length_unit_m / spec.length_unit_m) {
+  check_options(options);
+  if (!(path.length_unit_m > 0.0) || !std::isfinite(path.length_unit_m)) {
+    throw Error(ErrorKind::BadOption, "path length unit must be a positive number of metres");
   }
-  FieldEvaluator field(spec);
-  if (field.uses_arc_length()) {
-    throw Error(ErrorKind::BadOption, "formulas that read s are not supported by this engine build");
-  }
-  Integrand f(path, spec, field);
-  const std::size_t nf = field.count();
+}
 
-  std::priority_queue<Interval, std::vector<Interval>, ByPriority> queue;
-  std::vector<Interval> initial;
-  for (std::size_t k = 0; k < path.segments.size(); ++k) {
-    const Curve& c = *path.segments[k].curve;
-    std::vector<double> knots{c.first()};
-    for (double b : c.breaks()) knots.push_back(b);
-    knots.push_back(c.last());
-    for (std::size_t i = 0; i + 1 < knots.size(); ++i) {
-      if (knots[i + 1] > knots[i]) initial.push_back(apply_rule(f, k, knots[i], knots[i + 1], nf));
-    }
+void WorkIntegrator::sample(std::size_t k, double t, double* out, NodeInfo& info) {
+  const Segment& seg = path_.segments[k];
+  Vec3 p, v;
+  seg.curve->d1(t, p, v);
+  const double sigma = seg.reversed ? -1.0 : 1.0;
+  const double speed = norm(v);
+  if (!is_finite(p) || !std::isfinite(speed)) {
+    throw Error(ErrorKind::NonFiniteField, "curve derivative is not finite on " + describe_point(seg, t, p));
   }
+  FieldPoint q;
+  q.position = to_field_ * p;
+  q.tangent = speed > 0.0 ? (sigma / speed) * v : Vec3{};
+  if (field_.uses_arc_length()) q.s = arc_.s_at(k, t) / spec_.length_unit_m;
+  field_.eval(q, forces_.data());
+  ++evaluations_;
+  ++per_segment_[k];
+  const Vec3 dr = (sigma * path_.length_unit_m) * v;  // metres per unit t, in travel direction
+  Vec3 total;
+  for (std::size_t i = 0; i < forces_.size(); ++i) {
+    if (!is_finite(forces_[i])) {
+      throw Error(ErrorKind::NonFiniteField,
+                  "field '" + field_.name(i) + "' is not finite on " + describe_point(seg, t, p));
+    }
+    total += forces_[i];
+    if (out) out[kFirstField + i] = dot(forces_[i], dr);
+  }
+  if (out) {
+    out[kWork] = dot(total, dr);
+    out[kAbsWork] = std::abs(out[kWork]);
+    out[kLength] = speed * path_.length_unit_m;
+  }
+  info.tangential = dot(total, q.tangent);
+  info.magnitude = norm(total);
+}
 
-  auto totals = [&](const std::vector<Interval>& v, double& w, double& we, double& aw, double& l, double& le) {
-    w = we = aw = l = le = 0.0;
-    for (const Interval& i : v) {
-      w += i.work;
-      we += i.work_err;
-      aw += i.abs_work;
-      l += i.length;
-      le += i.length_err;
-    }
-  };
-  double w, we, aw, l, le;
-  totals(initial, w, we, aw, l, le);
-  auto tol_work = [&](double abs_work) { return std::max(options.rel_tol * abs_work, options.abs_tol_J); };
-  auto tol_len = [&](double length) { return std::max(options.rel_tol * length, 1e-15); };
-  for (Interval& i : initial) {
-    i.priority = std::max(i.work_err / tol_work(aw), i.length_err / tol_len(l));
-    queue.push(std::move(i));
+double WorkIntegrator::tangential_N(std::size_t k, double t, Vec3* position) {
+  NodeInfo info;
+  sample(k, t, nullptr, info);
+  if (position) {
+    Vec3 v;
+    path_.segments[k].curve->d1(t, *position, v);
   }
+  return info.tangential;
+}
 
-  Status status = Status::Converged;
-  while (we > tol_work(aw) || le > tol_len(l)) {
-    if (f.evaluations() >= options.max_evaluations || queue.empty()) {
-      status = Status::ToleranceNotMet;
-      break;
-    }
-    Interval worst = queue.top();
-    queue.pop();
-    const double mid = 0.5 * (worst.a + worst.b);
-    if (!(mid > worst.a && mid < worst.b)) {  // interval exhausted at double precision
-      status = Status::ToleranceNotMet;
-      queue.push(std::move(worst));
-      break;
-    }
-    Interval left = apply_rule(f, worst.segment, worst.a, mid, nf);
-    Interval right = apply_rule(f, worst.segment, mid, worst.b, nf);
-    w += left.work + right.work - worst.work;
-    we += left.work_err + right.work_err - worst.work_err;
-    aw += left.abs_work + right.abs_work - worst.abs_work;
-    l += left.length + right.length - worst.length;
-    le += left.length_err + right.length_err - worst.length_err;
-    for (Interval* i : {&left, &right}) {
-      i->priority = std::max(i->work_err / tol_work(aw), i->length_err / tol_len(l));
-      queue.push(std::move(*i));
-    }
-  }
+WorkResult WorkIntegrator::run(double from_m, double to_m, bool find_peaks) {
+  const std::size_t nf = field_.count();
+  const std::vector<Span> spans = window_spans(path_, arc_, from_m, to_m, !field_.uses_arc_length());
+  const std::vector<Control> controls{{kWork, kAbsWork, options_.abs_tol_J}, {kLength, kLength, kLengthFloor_m}};
+  QuadratureOptions qo;
+  qo.rel_tol = options_.rel_tol;
+  qo.max_evaluations = std::max(1L, options_.max_evaluations - evaluations_);
+  qo.split_at_peaks = options_.split_at_peaks;
+  const long before = evaluations_;
+  const std::vector<long> before_seg = per_segment_;
+  const QuadratureResult q = integrate_spans(
+      spans, kFirstField + nf, controls,
+      [&](const Span& s, double t, double* out, NodeInfo& info) { sample(s.segment, t, out, info); }, qo);
 
   WorkResult r;
-  r.status = status;
-  r.closed = path.closed;
-  r.evaluations = f.evaluations();
-  r.segments.resize(path.segments.size());
-  for (std::size_t k = 0; k < path.segments.size(); ++k) {
+  r.status = q.converged ? Status::Converged : Status::ToleranceNotMet;
+  r.window_from_m = from_m;
+  r.window_to_m = to_m;
+  const double total = arc_.total_m();
+  r.closed = path_.closed && from_m <= 0.0 && to_m >= total;
+  r.segments.resize(path_.segments.size());
+  std::vector<double> best(path_.segments.size(), -1.0);
+  std::vector<const Piece*> best_piece(path_.segments.size(), nullptr);
+  for (std::size_t k = 0; k < path_.segments.size(); ++k) {
     SegmentWork& s = r.segments[k];
-    s.edge = path.segments[k].edge;
-    s.reversed = path.segments[k].reversed;
-    s.name = path.segments[k].name;
-    for (std::size_t j = 0; j < nf; ++j) s.fields.push_back({field.name(j), 0.0});
+    s.edge = path_.segments[k].edge;
+    s.reversed = path_.segments[k].reversed;
+    s.name = path_.segments[k].name;
+    for (std::size_t j = 0; j < nf; ++j) s.fields.push_back({field_.name(j), 0.0});
   }
-  for (std::size_t j = 0; j < nf; ++j) r.fields.push_back({field.name(j), 0.0});
-  while (!queue.empty()) {
-    const Interval& i = queue.top();
-    SegmentWork& s = r.segments[i.segment];
-    s.work_J += i.work;
-    s.error_J += i.work_err;
-    s.abs_work_J += i.abs_work;
-    s.length_m += i.length;
+  for (std::size_t j = 0; j < nf; ++j) r.fields.push_back({field_.name(j), 0.0});
+  for (const Piece& p : q.pieces) {
+    const std::size_t k = spans[p.span].segment;
+    SegmentWork& s = r.segments[k];
+    s.work_J += p.value[kWork];
+    s.error_J += p.error[kWork];
+    s.abs_work_J += p.value[kAbsWork];
+    s.length_m += p.value[kLength];
+    r.length_error_m += p.error[kLength];
     for (std::size_t j = 0; j < nf; ++j) {
-      s.fields[j].work_J += i.fields[j];
-      r.fields[j].work_J += i.fields[j];
+      s.fields[j].work_J += p.value[kFirstField + j];
+      r.fields[j].work_J += p.value[kFirstField + j];
     }
-    r.length_error_m += i.length_err;
-    queue.pop();
+    if (std::abs(p.best_tangential) > best[k]) {
+      best[k] = std::abs(p.best_tangential);
+      best_piece[k] = &p;
+    }
   }
-  for (const SegmentWork& s : r.segments) {
+  if (find_peaks) {
+    double overall = -1.0;
+    for (std::size_t k = 0; k < path_.segments.size(); ++k) {
+      if (!best_piece[k]) continue;
+      const Piece& p = *best_piece[k];
+      const double t = maximize_abs([&](double u) { return tangential_N(k, u); }, p.best_lo, p.best_hi);
+      Peak peak;
+      peak.force_N = tangential_N(k, t, &peak.position);
+      if (std::abs(peak.force_N) < std::abs(p.best_tangential)) {  // the node itself was the best seen
+        peak.force_N = tangential_N(k, p.best_t, &peak.position);
+        peak.s_m = arc_.s_at(k, p.best_t);
+      } else {
+        peak.s_m = arc_.s_at(k, t);
+      }
+      peak.edge = path_.segments[k].edge;
+      peak.segment = k;
+      r.segments[k].peak = peak;
+      if (std::abs(peak.force_N) > overall) {
+        overall = std::abs(peak.force_N);
+        r.peak = peak;
+      }
+    }
+  }
+  for (std::size_t k = 0; k < path_.segments.size(); ++k) {
+    SegmentWork& s = r.segments[k];
+    s.evaluations = per_segment_[k] - before_seg[k];
     r.work_J += s.work_J;
     r.error_J += s.error_J;
     r.abs_work_J += s.abs_work_J;
     r.length_m += s.length_m;
   }
+  r.evaluations = evaluations_ - before;
+
+  const double target = std::max(options_.rel_tol * r.abs_work_J, options_.abs_tol_J);
+  if (field_.has_potential() && !path_.segments.empty()) {
+    const PathLocation a = arc_.locate(from_m), b = arc_.locate(to_m);
+    const double ua = field_.potential(to_field_ * a.position);
+    const double ub = field_.potential(to_field_ * b.position);
+    r.potential_drop_J = -(ub - ua);
+    const double allowed =
+        kCheckSafety * std::max(r.error_J, target) + kPotentialRoundoff * (std::abs(ua) + std::abs(ub));
+    r.potential_mismatch = !(std::abs(r.work_J - *r.potential_drop_J) <= allowed);
+  }
+  if (r.closed && options_.assume_conservative) {
+    r.loop_mismatch = !(std::abs(r.work_J) <= kCheckSafety * std::max(r.error_J, target));
+  }
   return r;
+}
+
+}  // namespace detail
+
+WorkResult compute_work(const Path& path, const FieldSpec& field, const IntegrationOptions& options) {
+  detail::WorkIntegrator integrator(path, field, options);
+  const double total = integrator.arc().total_m();
+  const double from = options.window_from_m.value_or(0.0);
+  const double to = options.window_to_m.value_or(total);
+  const double slack = 1e-12 * total;
+  if (!(from >= -slack && to <= total + slack && from <= to)) {
+    std::ostringstream os;
+    os.precision(12);
+    os << "distance window [" << from << ", " << to << "] m must satisfy 0 <= from <= to <= " << total
+       << " m (the path length)";
+    throw Error(ErrorKind::BadOption, os.str());
+  }
+  return integrator.run(std::max(from, 0.0), std::min(to, total), options.find_peaks);
 }
 
 }  // namespace ergpath
