@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <fstream>
 #include <ostream>
+#include <set>
 #include <sstream>
 
 #include "plugin/core/error.h"
@@ -133,7 +134,6 @@ BatchSummary merge_summaries(const std::vector<BatchSummary>& shards) {
     }
     m.jobs = std::max(m.jobs, s.jobs);
     m.model_reads += s.model_reads;
-    m.distinct_models = std::max(m.distinct_models, s.distinct_models);
     m.ran += s.ran;
     m.resumed += s.resumed;
     m.elapsed_s = std::max(m.elapsed_s, s.elapsed_s);
@@ -145,6 +145,12 @@ BatchSummary merge_summaries(const std::vector<BatchSummary>& shards) {
     }
     m.results.push_back(*by_index[i]);
   }
+  // Shards may share models, so their counts do not add up: count the files of the cases that ran.
+  std::set<std::string> models;
+  for (const CaseResult& r : m.results) {
+    if (!r.resumed) models.insert(r.model);
+  }
+  m.distinct_models = models.size();
   return m;
 }
 

@@ -24,7 +24,8 @@ BatchSummary read_summary(const std::string& file);
 
 /// Combines shard summaries of one manifest into the summary of a full run. Throws Error(BadManifest)
 /// when they come from different manifests (digest or case count differ) or shard counts, when a case is
-/// missing or appears twice, or when no summary is given. model_reads adds up the shards' reads.
+/// missing or appears twice, or when no summary is given. model_reads adds up the shards' reads (a model
+/// used by several shards is read once in each); distinct_models counts the models of the merged cases.
 BatchSummary merge_summaries(const std::vector<BatchSummary>& shards);
 
 /// Where `check --results FILE` puts the summary: FILE with ".jsonl" replaced by ".summary.json"

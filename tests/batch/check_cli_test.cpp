@@ -222,6 +222,9 @@ TEST(MergeCommand, ShardedRunsMergedEqualOneFullRun) {
   const nlohmann::json merged = nlohmann::json::parse(m.out);
   EXPECT_EQ(results_without_timing(merged), results_without_timing(nlohmann::json::parse(full.out)));
   EXPECT_EQ(merged.at("merged_shards"), 4);
+  // The six demo cases use six different models, so no two shards share one: six reads in all.
+  EXPECT_EQ(merged.at("model_reads"), 6);
+  EXPECT_EQ(merged.at("distinct_models"), 6);
   EXPECT_EQ(nlohmann::json::parse(read_text(dir + "/merged.json")), merged);
 }
 
