@@ -16,6 +16,7 @@
 #include "plugin/batch/inputs_hash.h"
 #include "plugin/core/error.h"
 #include "plugin/core/work.h"
+#include "plugin/report/work_report.h"
 
 namespace ergpath::batch {
 
@@ -60,8 +61,9 @@ CaseResult run_case(const PreparedCase& p, ModelCache& cache) {
     r.values = values_of(w);
     if (w.status == Status::ToleranceNotMet) {
       throw Error(ErrorKind::ToleranceNotMet,
-                  "tolerance " + std::to_string(c.tolerance) + " not met: best work " + std::to_string(w.work_J) +
-                      " J, error estimate " + std::to_string(w.error_J) + " J");
+                  "tolerance " + report::format_number(c.tolerance, 3) + " not met: best work " +
+                      report::format_number(w.work_J) + " J, error estimate " + report::format_number(w.error_J, 3) +
+                      " J after " + std::to_string(w.evaluations) + " evaluations");
     }
     r.checks = judge_limits(c.limits, w);
     r.verdict = verdict_of(r.checks);

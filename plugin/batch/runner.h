@@ -56,7 +56,8 @@ struct BatchSummary {
   int exit_code() const;
 };
 
-/// Runs the shard's cases. Broken cases come back as Verdict::Error with the error's kind and message; the
+/// Runs the shard's cases. Sets TBB's process-wide thread limit to `jobs` while it runs: do not call it
+/// from several threads at once. Broken cases come back as Verdict::Error with the error's kind and message; the
 /// others still run. Throws only Error(BadOption) for jobs < 1 or a bad shard, or what on_finished throws.
 BatchSummary run_batch(const Manifest& manifest, const ModelLoader& loader, const RunOptions& options);
 
