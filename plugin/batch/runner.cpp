@@ -1,16 +1,17 @@
 #include "plugin/batch/runner.h"
 
-#include <tbb/blocked_range.h>
 #include <tbb/global_control.h>
 #include <tbb/parallel_for.h>
 #include <tbb/partitioner.h>
 #include <tbb/task_arena.h>
+#include <tbb/task_group.h>
 
+#include <algorithm>
+#include <atomic>
 #include <chrono>
 #include <cstdlib>
 #include <map>
 #include <mutex>
-#include <set>
 #include <unordered_map>
 
 #include "plugin/batch/inputs_hash.h"
@@ -164,7 +165,7 @@ BatchSummary run_batch(const Manifest& manifest, const ModelLoader& loader, cons
   s.results.resize(prepared.size());
   std::vector<std::size_t> todo;
   ModelCache cache(loader);
-  std::set<std::string> models_needed;
+  std::vector<std::string> models;  // in order of first use
   for (std::size_t i = 0; i < prepared.size(); ++i) {
     auto hit = done_before.find(prepared[i].sha256);
     if (hit != done_before.end()) {
@@ -175,16 +176,27 @@ BatchSummary run_batch(const Manifest& manifest, const ModelLoader& loader, cons
       ++s.resumed;
     } else {
       todo.push_back(i);
-      cache.expect(prepared[i].spec->model_file);
-      models_needed.insert(prepared[i].spec->model_file);
+      const std::string& file = prepared[i].spec->model_file;
+      if (std::find(models.begin(), models.end(), file) == models.end()) models.push_back(file);
+      cache.expect(file);
     }
   }
-  s.distinct_models = models_needed.size();
+  s.distinct_models = models.size();
+  // Cases grouped by model, models in order of first use: while one thread parses the next model, the
+  // others work through the cases of the models already parsed instead of waiting for it.
+  std::stable_sort(todo.begin(), todo.end(), [&](std::size_t a, std::size_t b) {
+    auto rank = [&](std::size_t i) {
+      return std::find(models.begin(), models.end(), prepared[i].spec->model_file) - models.begin();
+    };
+    return rank(a) < rank(b);
+  });
 
   if (options.on_planned) options.on_planned(todo.size());
   std::mutex finished_mutex;
-  auto body = [&](const tbb::blocked_range<std::size_t>& range) {
-    for (std::size_t k = range.begin(); k != range.end(); ++k) {
+  std::atomic<std::size_t> next{0};
+  // Self-scheduling: each worker takes the next case in line, so a slow case never holds up a fixed chunk.
+  auto worker = [&](int) {
+    for (std::size_t k; (k = next++) < todo.size();) {
       const std::size_t i = todo[k];
       CaseResult r = run_case(prepared[i], cache);
       {
@@ -199,7 +211,21 @@ BatchSummary run_batch(const Manifest& manifest, const ModelLoader& loader, cons
                               static_cast<std::size_t>(options.jobs));
   tbb::task_arena arena(options.jobs);
   arena.execute([&] {
-    tbb::parallel_for(tbb::blocked_range<std::size_t>(0, todo.size(), 1), body, tbb::simple_partitioner());
+    tbb::task_group prefetch;
+    if (options.jobs > 1) {
+      // Parses the models ahead of the workers; a worker that needs a model first parses it itself, and
+      // the cache makes sure each file is parsed once whoever gets there first. Errors stay in the cache.
+      prefetch.run([&] {
+        for (const std::string& file : models) {
+          try {
+            cache.get(file);
+          } catch (const Error&) {
+          }
+        }
+      });
+    }
+    tbb::parallel_for(0, options.jobs, worker, tbb::simple_partitioner());
+    prefetch.wait();
   });
   s.ran = todo.size();
   s.model_reads = cache.loads();

@@ -3,6 +3,9 @@
 // Concurrency model: every model file is loaded once through a ModelCache and shared read-only; each case
 // builds its own Path (fresh curve objects) and compute_work builds its own FieldEvaluator, so no mutable
 // state is shared between threads except the cache slots and the serialised on_finished callback.
+// Cases are queued grouped by model (models in order of first use) and taken one at a time by each
+// worker; with two or more jobs one task parses the models ahead of the workers, so parsing (serialised
+// by the kernel adapter) overlaps with integrating the cases of models already parsed.
 #pragma once
 
 #include <functional>
