@@ -48,7 +48,6 @@ CaseResult run_case(const PreparedCase& p, ModelCache& cache) {
   try {
     if (p.input_error) throw *p.input_error;
     const FieldSpec& field = *p.field;
-    { FieldEvaluator formulas_compile(field); }  // formula errors before the model is loaded
     const std::shared_ptr<const LoadedModel> model = cache.get(c.model_file);
     PathRequest req;
     req.selector = c.selector;
