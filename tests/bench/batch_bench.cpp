@@ -13,6 +13,8 @@
 #include <cstdio>
 #include <cstdlib>
 #include <string>
+#include <set>
+#include <thread>
 #include <vector>
 
 #include "plugin/batch/manifest.h"
@@ -32,6 +34,7 @@ double median(std::vector<double> v) {
 struct Timed {
   double seconds = 0.0;
   long parses = 0;
+  std::size_t threads = 0;  // distinct threads that finished a case
   BatchSummary summary;
 };
 
@@ -44,11 +47,14 @@ Timed timed_run(const Manifest& m, int jobs) {
   };
   RunOptions o;
   o.jobs = jobs;
+  std::set<std::thread::id> threads;
+  o.on_finished = [&](const CaseResult&) { threads.insert(std::this_thread::get_id()); };  // serialised
   const auto t0 = std::chrono::steady_clock::now();
   Timed t;
   t.summary = run_batch(m, counting, o);
   t.seconds = std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
   t.parses = parses.load();
+  t.threads = threads.size();
   return t;
 }
 
@@ -79,6 +85,7 @@ int main(int argc, char** argv) {
               big.cases.size(), demo.cases.size(), copies, rounds);
   std::vector<double> t1, t2;
   long parses1 = 0, parses2 = 0;
+  std::size_t threads2 = 0;
   std::size_t pass = 0, fail = 0, error = 0;
   for (int r = 0; r < rounds; ++r) {
     const Timed a = timed_run(big, 1);
@@ -87,6 +94,7 @@ int main(int argc, char** argv) {
     t2.push_back(b.seconds);
     parses1 = std::max(parses1, a.parses);
     parses2 = std::max(parses2, b.parses);
+    threads2 = std::max(threads2, b.threads);
     pass = b.summary.count(Verdict::Pass);
     fail = b.summary.count(Verdict::Fail);
     error = b.summary.count(Verdict::Error);
@@ -99,6 +107,7 @@ int main(int argc, char** argv) {
   std::printf("speed-up jobs 2 vs jobs 1: %.2f (goal >= 1.8)\n", m1 / m2);
   std::printf("model files parsed per run: %ld with jobs 1, %ld with jobs 2 (distinct models: %zu)\n", parses1,
               parses2, big.cases.empty() ? 0 : timed_run(demo, 1).summary.distinct_models);
+  std::printf("threads that ran cases with jobs 2: %zu\n", threads2);
   std::printf("verdicts per run: %zu PASS, %zu FAIL, %zu ERROR\n", pass, fail, error);
   return parses1 == parses2 && error == 0 ? 0 : 1;
 }
