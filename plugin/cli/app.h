@@ -27,6 +27,7 @@ struct Command {
 void add_list_command(CLI::App& app, std::vector<Command>& commands);
 void add_work_command(CLI::App& app, std::vector<Command>& commands);
 void add_profile_command(CLI::App& app, std::vector<Command>& commands);
+void add_scalar_command(CLI::App& app, std::vector<Command>& commands);
 void add_check_command(CLI::App& app, std::vector<Command>& commands);
 void add_merge_command(CLI::App& app, std::vector<Command>& commands);
 

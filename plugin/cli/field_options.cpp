@@ -99,6 +99,16 @@ FieldSpec make_field_spec(const FieldOptions& o) {
   return spec;
 }
 
+double parse_length_m(const std::string& text, const std::string& what) {
+  std::size_t end = text.size();
+  while (end > 0 && std::isalpha(static_cast<unsigned char>(text[end - 1]))) --end;
+  const std::string unit = text.substr(end);
+  std::string number = text.substr(0, end);
+  while (!number.empty() && std::isspace(static_cast<unsigned char>(number.back()))) number.pop_back();
+  const double scale = unit.empty() ? 1.0 : length_unit_m(unit);
+  return parse_number(number, what) * scale;
+}
+
 occt::PathOptions make_path_options(const PathCliOptions& o) {
   occt::PathOptions p;
   p.reverse = o.reverse;

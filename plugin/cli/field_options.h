@@ -47,6 +47,9 @@ Vec3 parse_point(const std::string& text, const std::string& what);
 /// Parses a finite double; throws Error(kind) with "what: 'text' is not a number".
 double parse_number(const std::string& text, const std::string& what, ErrorKind kind = ErrorKind::BadOption);
 
+/// "0.25" (metres) or a number with a unit suffix: "250mm", "25 cm", "10in", "1ft", "0.25m".
+double parse_length_m(const std::string& text, const std::string& what);
+
 occt::PathOptions make_path_options(const PathCliOptions& o);
 
 }  // namespace ergpath::cli

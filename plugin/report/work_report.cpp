@@ -56,6 +56,21 @@ nlohmann::json work_json(const WorkResult& r, const WorkContext& c) {
   if (r.closed) j["circulation_J"] = r.work_J;
   j["field_length_unit"] = c.field_length_unit;
   j["tolerance"] = c.rel_tol;
+  j["window_m"] = {r.window_from_m, r.window_to_m};
+  if (r.potential_drop_J) {
+    j["potential_drop_J"] = *r.potential_drop_J;
+    j["potential_mismatch"] = r.potential_mismatch;
+  }
+  if (r.closed) j["loop_mismatch"] = r.loop_mismatch;
+  if (c.curl) {
+    j["curl_check"] = {{"applicable", c.curl->applicable},
+                       {"samples", c.curl->samples},
+                       {"max_curl_N_per_m", c.curl->max_curl_N_per_m},
+                       {"force_scale_N", c.curl->force_scale_N},
+                       {"relative", c.curl->relative},
+                       {"position_mm", position_mm_json(c.curl->position, c.model_unit_m)},
+                       {"s_m", c.curl->s_m}};
+  }
   j["fields"] = fields_json(r.fields);
   j["peak_tangential_force"] = peak_json(r.peak, c.model_unit_m);
   nlohmann::json segs = nlohmann::json::array();
@@ -93,7 +108,37 @@ void write_work_text(std::ostream& out, const WorkResult& r, const WorkContext& 
   out << "\n";
   out << (r.closed ? "Circulation (total work around the loop): " : "Total work: ") << format_number(r.work_J)
       << " J  (error estimate " << format_number(r.error_J, 2) << " J)\n";
-  out << "Path length: " << format_number(r.length_m) << " m\n";
+  if (!r.closed && r.work_J < 0.0) {
+    out << "The fields take " << format_number(-r.work_J, 6)
+        << " J from the moving part: a drive must supply at least that much (plus what the model leaves out).\n";
+  } else if (!r.closed && r.work_J > 0.0) {
+    out << "The fields give " << format_number(r.work_J, 6)
+        << " J to the moving part: a brake or damper must absorb it, or it becomes kinetic energy.\n";
+  }
+  out << "Path length: " << format_number(r.length_m) << " m";
+  if (r.window_from_m > 0.0 || r.window_to_m < r.length_m) {
+    out << "; integrated from s = " << format_number(r.window_from_m) << " m to s = " << format_number(r.window_to_m)
+        << " m";
+  }
+  out << "\n";
+  if (r.potential_drop_J) {
+    out << "Potential check: -(U(end) - U(start)) = " << format_number(*r.potential_drop_J) << " J"
+        << (r.potential_mismatch ? "  MISMATCH: the potential does not match the force field\n" : "  (agrees)\n");
+  }
+  if (r.closed && r.loop_mismatch) {
+    out << "WARNING: the field was stated conservative but its circulation around this closed loop is not zero "
+           "within tolerance.\n";
+  }
+  if (c.curl) {
+    if (!c.curl->applicable) {
+      out << "Curl check: not applicable (the field depends on s or on the travel direction)\n";
+    } else {
+      out << "Curl check: max |curl F| = " << format_number(c.curl->max_curl_N_per_m, 4) << " N/m over "
+          << c.curl->samples << " samples (relative " << format_number(c.curl->relative, 3) << ")"
+          << (c.curl->relative > 1e-6 ? ": the work depends on the path\n"
+                                      : ": no curl seen; path independence is plausible where the field is smooth\n");
+    }
+  }
   if (r.fields.size() > 1 || (r.fields.size() == 1 && r.fields[0].name != "F")) {
     out << "Work by field:\n";
     for (const FieldWork& f : r.fields) out << "  " << pad(f.name, 16, false) << format_number(f.work_J) << " J\n";

@@ -4,9 +4,11 @@
 #include <nlohmann/json.hpp>
 
 #include <iosfwd>
+#include <optional>
 #include <string>
 #include <vector>
 
+#include "plugin/core/curl_check.h"
 #include "plugin/core/work.h"
 
 namespace ergpath::report {
@@ -19,6 +21,7 @@ struct WorkContext {
   std::string field_length_unit;  // "m", "mm", ... as seen by the formulas
   double rel_tol = 0.0;
   std::vector<std::string> notes; // e.g. skipped degenerated edges
+  std::optional<CurlEstimate> curl;  // when a curl check was asked for
 };
 
 /// JSON object: work_J, error_estimate_J, length_m, evaluations, status, closed, segments[{edge, reversed,
