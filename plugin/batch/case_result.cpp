@@ -8,9 +8,12 @@ namespace ergpath::batch {
 
 const char* to_string(Verdict v) {
   switch (v) {
-    case Verdict::Pass: return "PASS";
-    case Verdict::Fail: return "FAIL";
-    case Verdict::Error: return "ERROR";
+    case Verdict::Pass:
+      return "PASS";
+    case Verdict::Fail:
+      return "FAIL";
+    case Verdict::Error:
+      return "ERROR";
   }
   return "ERROR";
 }
@@ -43,7 +46,8 @@ std::vector<Check> judge_limits(const Limits& l, const WorkResult& r) {
       }
     }
     if (!found) {
-      throw Error(ErrorKind::BadOption, "limits.work_of names '" + l.work_of + "', which is not a force of this case");
+      throw Error(ErrorKind::BadOption,
+                  "limits.work_of names '" + l.work_of + "', which is not a force of this case");
     }
   }
   // The integrator reports one error estimate for the total; it also bounds each field's share only
@@ -112,8 +116,12 @@ nlohmann::json to_json(const CaseResult& r) {
   }
   nlohmann::json checks = nlohmann::json::array();
   for (const Check& c : r.checks) {
-    checks.push_back({{"quantity", c.quantity}, {"bound", c.bound}, {"limit", c.limit}, {"value", c.value},
-                      {"error", c.error}, {"pass", c.pass}});
+    checks.push_back({{"quantity", c.quantity},
+                      {"bound", c.bound},
+                      {"limit", c.limit},
+                      {"value", c.value},
+                      {"error", c.error},
+                      {"pass", c.pass}});
   }
   j["checks"] = checks;
   if (r.verdict == Verdict::Error) {

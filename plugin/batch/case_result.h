@@ -22,11 +22,11 @@ enum class Verdict { Pass, Fail, Error };
 const char* to_string(Verdict v);
 
 struct Check {
-  std::string quantity;    // "work_J", "work_magnitude_J", "peak_force_N", "circulation_J", "length_m"
-  std::string bound;       // "min" or "max"
-  double limit = 0.0;      // joules, newtons or metres as the quantity says
-  double value = 0.0;      // same unit
-  double error = 0.0;      // error estimate of value, same unit (0 when the quantity has none)
+  std::string quantity;  // "work_J", "work_magnitude_J", "peak_force_N", "circulation_J", "length_m"
+  std::string bound;     // "min" or "max"
+  double limit = 0.0;    // joules, newtons or metres as the quantity says
+  double value = 0.0;    // same unit
+  double error = 0.0;    // error estimate of value, same unit (0 when the quantity has none)
   bool pass = false;
 };
 
@@ -43,18 +43,18 @@ struct CaseValues {
 };
 
 struct CaseResult {
-  std::size_t index = 0;     // position in the manifest
+  std::size_t index = 0;  // position in the manifest
   std::string name;
   std::string inputs_sha256;
-  std::string model;         // as written in the manifest
+  std::string model;  // as written in the manifest
   std::string selector;
   Verdict verdict = Verdict::Error;
   std::optional<CaseValues> values;  // absent when the case stopped before integrating
   std::vector<Check> checks;
-  std::string error_kind;    // ErrorKind identifier ("gap_too_large", ...) or "internal"; empty unless ERROR
+  std::string error_kind;  // ErrorKind identifier ("gap_too_large", ...) or "internal"; empty unless ERROR
   std::string error_message;
-  double elapsed_s = 0.0;    // wall time of this case
-  bool resumed = false;      // taken from an earlier results log instead of being run
+  double elapsed_s = 0.0;  // wall time of this case
+  bool resumed = false;    // taken from an earlier results log instead of being run
 };
 
 /// Judges `limits` on a finished integration. Throws Error(BadOption) when a circulation limit is set on

@@ -25,8 +25,10 @@ void put(Sha256& h, const std::string& tag, double v) {
 }
 
 void put(Sha256& h, const std::string& tag, const std::optional<double>& v) {
-  if (v) put(h, tag, *v);
-  else put(h, tag, std::string("none"));
+  if (v)
+    put(h, tag, *v);
+  else
+    put(h, tag, std::string("none"));
 }
 
 }  // namespace

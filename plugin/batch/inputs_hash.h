@@ -13,7 +13,8 @@
 namespace ergpath::batch {
 
 /// Digest of a case. `model_sha256` is the digest of the model file's bytes (or a marker when the file
-/// cannot be read); `field` is the resolved FieldSpec, or nullptr with `field_error` set when resolving failed.
+/// cannot be read); `field` is the resolved FieldSpec, or nullptr with `field_error` set when resolving
+/// failed.
 std::string inputs_sha256(const CaseSpec& c, const std::string& model_sha256, const FieldSpec* field,
                           const std::string& field_error);
 

@@ -26,9 +26,9 @@ bool Limits::empty() const {
 namespace {
 
 const std::vector<std::string>& case_keys() {
-  static const std::vector<std::string> keys{"name",     "model",     "path",       "reverse",
-                                             "start_mm", "gap_tolerance_mm", "tolerance", "field_file",
-                                             "limits"};
+  static const std::vector<std::string> keys{"name",      "model",      "path",
+                                             "reverse",   "start_mm",   "gap_tolerance_mm",
+                                             "tolerance", "field_file", "limits"};
   return keys;
 }
 
@@ -93,12 +93,13 @@ void parse_limits(const toml::table& t, const std::string& origin, Limits& l) {
       if (l.work_of.empty()) fail(at(origin, node), "'work_of' must name a force field");
       continue;
     }
-    const Bound* b = std::find_if(std::begin(bounds), std::end(bounds),
-                                  [&](const Bound& x) { return key == x.key; });
+    const Bound* b =
+        std::find_if(std::begin(bounds), std::end(bounds), [&](const Bound& x) { return key == x.key; });
     if (b == std::end(bounds)) {
-      fail(at(origin, node), "unknown limit '" + key +
-                                 "' (expected work_min_J, work_max_J, work_magnitude_min_J, work_magnitude_max_J, "
-                                 "peak_force_max_N, circulation_max_J, length_min_m, length_max_m, work_of)");
+      fail(at(origin, node),
+           "unknown limit '" + key +
+               "' (expected work_min_J, work_max_J, work_magnitude_min_J, work_magnitude_max_J, "
+               "peak_force_max_N, circulation_max_J, length_min_m, length_max_m, work_of)");
     }
     const double v = number(node, origin, key);
     const bool non_negative = key != "work_min_J" && key != "work_max_J";
@@ -114,8 +115,9 @@ void parse_case_keys(const toml::table& t, const std::string& origin, const std:
     const std::string key(k.str());
     if (!contains(case_keys(), key) && !contains(field_keys(), key)) {
       fail(at(origin, node),
-           "unknown key '" + key + "' (expected name, model, path, reverse, start_mm, gap_tolerance_mm, tolerance, "
-                                   "field_file, limits, length_unit, potential, constants or forces)");
+           "unknown key '" + key +
+               "' (expected name, model, path, reverse, start_mm, gap_tolerance_mm, tolerance, "
+               "field_file, limits, length_unit, potential, constants or forces)");
     }
     if (key == "name") {
       if (is_defaults) fail(at(origin, node), "'name' belongs to a case, not to [defaults]");
@@ -129,8 +131,10 @@ void parse_case_keys(const toml::table& t, const std::string& origin, const std:
       c.reverse = boolean(node, origin, key);
     } else if (key == "start_mm") {
       const toml::array* a = node.as_array();
-      if (!a || a->size() != 3) fail(at(origin, node), "'start_mm' must be an array of three numbers [x, y, z]");
-      c.start_mm = Vec3{number((*a)[0], origin, key), number((*a)[1], origin, key), number((*a)[2], origin, key)};
+      if (!a || a->size() != 3)
+        fail(at(origin, node), "'start_mm' must be an array of three numbers [x, y, z]");
+      c.start_mm =
+          Vec3{number((*a)[0], origin, key), number((*a)[1], origin, key), number((*a)[2], origin, key)};
     } else if (key == "gap_tolerance_mm") {
       c.gap_tolerance_mm = number(node, origin, key);
       if (c.gap_tolerance_mm < 0.0) fail(at(origin, node), "'gap_tolerance_mm' must not be negative");
@@ -162,14 +166,18 @@ void parse_case_keys(const toml::table& t, const std::string& origin, const std:
   for (auto& c2 : inline_fields.constants) {
     auto it = std::find_if(overlay.constants.begin(), overlay.constants.end(),
                            [&](const auto& x) { return x.first == c2.first; });
-    if (it != overlay.constants.end()) it->second = c2.second;
-    else overlay.constants.push_back(c2);
+    if (it != overlay.constants.end())
+      it->second = c2.second;
+    else
+      overlay.constants.push_back(c2);
   }
   for (auto& f : inline_fields.forces) {
     auto it = std::find_if(overlay.forces.begin(), overlay.forces.end(),
                            [&](const NamedField& x) { return x.name == f.name; });
-    if (it != overlay.forces.end()) it->formula = f.formula;
-    else overlay.forces.push_back(f);
+    if (it != overlay.forces.end())
+      it->formula = f.formula;
+    else
+      overlay.forces.push_back(f);
   }
   if (t.contains("potential")) overlay.potential = inline_fields.potential;
 }
@@ -180,7 +188,8 @@ void check_limits(const CaseSpec& c, const std::string& where) {
     fail(where, "case '" + c.name + "' has no limit to check (give a [limits] table, see docs/batch.md)");
   }
   auto ordered = [&](const std::optional<double>& lo, const std::optional<double>& hi, const char* what) {
-    if (lo && hi && *lo > *hi) fail(where, std::string("case '") + c.name + "': " + what + " minimum exceeds maximum");
+    if (lo && hi && *lo > *hi)
+      fail(where, std::string("case '") + c.name + "': " + what + " minimum exceeds maximum");
   };
   ordered(l.work_min_J, l.work_max_J, "work");
   ordered(l.work_magnitude_min_J, l.work_magnitude_max_J, "work magnitude");
@@ -191,14 +200,18 @@ void lay_over(FieldSpec& spec, const FieldOverlay& o) {
   for (const auto& [name, value] : o.constants) {
     auto it = std::find_if(spec.constants.begin(), spec.constants.end(),
                            [&](const auto& x) { return x.first == name; });
-    if (it != spec.constants.end()) it->second = value;
-    else spec.constants.emplace_back(name, value);
+    if (it != spec.constants.end())
+      it->second = value;
+    else
+      spec.constants.emplace_back(name, value);
   }
   for (const NamedField& f : o.forces) {
     auto it = std::find_if(spec.forces.begin(), spec.forces.end(),
                            [&](const NamedField& x) { return x.name == f.name; });
-    if (it != spec.forces.end()) it->formula = f.formula;
-    else spec.forces.push_back(f);
+    if (it != spec.forces.end())
+      it->formula = f.formula;
+    else
+      spec.forces.push_back(f);
   }
   if (o.length_unit_m) spec.length_unit_m = *o.length_unit_m;
   if (o.potential) spec.potential = *o.potential;
@@ -206,7 +219,8 @@ void lay_over(FieldSpec& spec, const FieldOverlay& o) {
 
 }  // namespace
 
-Manifest parse_manifest_text(const std::string& text_in, const std::string& origin, const std::string& base_dir) {
+Manifest parse_manifest_text(const std::string& text_in, const std::string& origin,
+                             const std::string& base_dir) {
   toml::table root;
   try {
     root = toml::parse(text_in, origin);
@@ -249,7 +263,8 @@ Manifest parse_manifest_text(const std::string& text_in, const std::string& orig
     parse_case_keys(t, origin, base_dir, false, c, c.case_fields);
     if (c.name.empty()) fail(where, "case without a 'name'");
     if (!names.insert(c.name).second) fail(where, "case name '" + c.name + "' is used twice");
-    if (c.model.empty()) fail(where, "case '" + c.name + "' has no 'model' (give it in the case or in [defaults])");
+    if (c.model.empty())
+      fail(where, "case '" + c.name + "' has no 'model' (give it in the case or in [defaults])");
     check_limits(c, where);
     m.cases.push_back(std::move(c));
   }

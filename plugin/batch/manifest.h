@@ -36,27 +36,27 @@ struct FieldOverlay {
 };
 
 struct CaseSpec {
-  std::size_t index = 0;             // 0-based position in the manifest
-  int line = 0;                      // manifest line of the case table
-  std::string name;                  // unique within the manifest
-  std::string model;                 // as written (relative to the manifest)
-  std::string model_file;            // resolved against the manifest's folder
-  std::string selector = "all";      // path selector (docs/selectors.md)
+  std::size_t index = 0;         // 0-based position in the manifest
+  int line = 0;                  // manifest line of the case table
+  std::string name;              // unique within the manifest
+  std::string model;             // as written (relative to the manifest)
+  std::string model_file;        // resolved against the manifest's folder
+  std::string selector = "all";  // path selector (docs/selectors.md)
   bool reverse = false;
-  std::optional<Vec3> start_mm;      // open chain: start at the end nearest this point, millimetres
+  std::optional<Vec3> start_mm;  // open chain: start at the end nearest this point, millimetres
   double gap_tolerance_mm = 1e-3;
-  double tolerance = 1e-10;          // relative error target on the work
-  std::string field_file;            // resolved path, empty when none
-  FieldOverlay defaults_fields;      // from [defaults], applied over the field file
-  FieldOverlay case_fields;          // from the case itself, applied last
+  double tolerance = 1e-10;      // relative error target on the work
+  std::string field_file;        // resolved path, empty when none
+  FieldOverlay defaults_fields;  // from [defaults], applied over the field file
+  FieldOverlay case_fields;      // from the case itself, applied last
   Limits limits;
 };
 
 struct Manifest {
-  std::string file;                  // as given
-  std::string title;                 // optional
-  std::string sha256;                // digest of the manifest's bytes (ties shard summaries together)
-  std::vector<CaseSpec> cases;       // in manifest order
+  std::string file;             // as given
+  std::string title;            // optional
+  std::string sha256;           // digest of the manifest's bytes (ties shard summaries together)
+  std::vector<CaseSpec> cases;  // in manifest order
 };
 
 /// Reads a manifest. Throws Error(BadManifest) "file:line: message" for unreadable files, TOML syntax,

@@ -23,8 +23,8 @@ void ProgressBar::step(bool failed, bool error) {
 
 void ProgressBar::draw() {
   const std::size_t filled = total_ == 0 ? kWidth : kWidth * done_ / total_;
-  out_ << "\r[" << std::string(filled, '#') << std::string(kWidth - filled, '.') << "] " << done_ << "/" << total_
-       << " cases  " << failed_ << " FAIL  " << errors_ << " ERROR" << std::flush;
+  out_ << "\r[" << std::string(filled, '#') << std::string(kWidth - filled, '.') << "] " << done_ << "/"
+       << total_ << " cases  " << failed_ << " FAIL  " << errors_ << " ERROR" << std::flush;
 }
 
 void ProgressBar::finish() {

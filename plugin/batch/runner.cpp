@@ -60,10 +60,11 @@ CaseResult run_case(const PreparedCase& p, ModelCache& cache) {
     const WorkResult w = compute_work(path, field, iopts);
     r.values = values_of(w);
     if (w.status == Status::ToleranceNotMet) {
-      throw Error(ErrorKind::ToleranceNotMet,
-                  "tolerance " + report::format_number(c.tolerance, 3) + " not met: best work " +
-                      report::format_number(w.work_J) + " J, error estimate " + report::format_number(w.error_J, 3) +
-                      " J after " + std::to_string(w.evaluations) + " evaluations");
+      throw Error(ErrorKind::ToleranceNotMet, "tolerance " + report::format_number(c.tolerance, 3) +
+                                                  " not met: best work " + report::format_number(w.work_J) +
+                                                  " J, error estimate " +
+                                                  report::format_number(w.error_J, 3) + " J after " +
+                                                  std::to_string(w.evaluations) + " evaluations");
     }
     r.checks = judge_limits(c.limits, w);
     r.verdict = verdict_of(r.checks);

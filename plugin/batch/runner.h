@@ -28,7 +28,7 @@ struct Shard {
 Shard parse_shard(const std::string& text);
 
 struct RunOptions {
-  int jobs = 1;                          // worker threads, >= 1
+  int jobs = 1;  // worker threads, >= 1
   Shard shard;
   /// Results of an earlier run (--resume): a case whose inputs digest appears here is not run again.
   std::vector<CaseResult> previous;
@@ -40,18 +40,18 @@ struct RunOptions {
 };
 
 struct BatchSummary {
-  std::string manifest;         // file as given
+  std::string manifest;  // file as given
   std::string manifest_sha256;
   std::string title;
   std::size_t cases_total = 0;  // cases in the whole manifest
   Shard shard;
   std::size_t merged_shards = 0;  // > 0 for a summary made by merge_summaries
   int jobs = 1;
-  long model_reads = 0;         // model files parsed by this run (each at most once)
+  long model_reads = 0;             // model files parsed by this run (each at most once)
   std::size_t distinct_models = 0;  // distinct model files among the cases that ran
-  std::size_t ran = 0;          // cases run now
-  std::size_t resumed = 0;      // cases taken from `previous`
-  double elapsed_s = 0.0;       // wall time of the run
+  std::size_t ran = 0;              // cases run now
+  std::size_t resumed = 0;          // cases taken from `previous`
+  double elapsed_s = 0.0;           // wall time of the run
   std::vector<CaseResult> results;  // this shard's cases in manifest order
 
   std::size_t count(Verdict v) const;
@@ -60,8 +60,9 @@ struct BatchSummary {
 };
 
 /// Runs the shard's cases. Sets TBB's process-wide thread limit to `jobs` while it runs: do not call it
-/// from several threads at once. Broken cases come back as Verdict::Error with the error's kind and message; the
-/// others still run. Throws only Error(BadOption) for jobs < 1 or a bad shard, or what on_finished throws.
+/// from several threads at once. Broken cases come back as Verdict::Error with the error's kind and message;
+/// the others still run. Throws only Error(BadOption) for jobs < 1 or a bad shard, or what on_finished
+/// throws.
 BatchSummary run_batch(const Manifest& manifest, const ModelLoader& loader, const RunOptions& options);
 
 }  // namespace ergpath::batch

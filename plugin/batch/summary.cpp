@@ -17,7 +17,9 @@ constexpr const char* kFormat = "ergpath-batch-summary-1";
 // Significant digits of values in the text table: enough to see a limit margin of 1e-6 relative.
 constexpr int kTableDigits = 7;
 
-std::string pad(const std::string& s, std::size_t w) { return s.size() >= w ? s : s + std::string(w - s.size(), ' '); }
+std::string pad(const std::string& s, std::size_t w) {
+  return s.size() >= w ? s : s + std::string(w - s.size(), ' ');
+}
 
 std::string unit_of(const std::string& quantity) {
   const auto u = quantity.rfind('_');
@@ -110,8 +112,8 @@ BatchSummary merge_summaries(const std::vector<BatchSummary>& shards) {
   std::vector<bool> shard_seen(first.shard.count, false);
   for (const BatchSummary& s : shards) {
     if (s.manifest_sha256 != first.manifest_sha256 || s.cases_total != first.cases_total) {
-      throw Error(ErrorKind::BadManifest, "merge: summaries of different manifests (" + first.manifest + " and " +
-                                              s.manifest + " differ in content)");
+      throw Error(ErrorKind::BadManifest, "merge: summaries of different manifests (" + first.manifest +
+                                              " and " + s.manifest + " differ in content)");
     }
     if (s.shard.count != first.shard.count) {
       throw Error(ErrorKind::BadManifest, "merge: shard counts differ (" + std::to_string(first.shard.count) +
@@ -172,8 +174,8 @@ void write_summary_text(std::ostream& out, const BatchSummary& s, const std::str
   for (const CaseResult& r : s.results) {
     const std::string tag = r.resumed ? " (resumed)" : "";
     if (r.verdict == Verdict::Error) {
-      out << pad(r.name, wname) << pad("-", wq) << pad("-", wv) << pad("-", wl) << "ERROR " << r.error_kind << ": "
-          << r.error_message << tag << "\n";
+      out << pad(r.name, wname) << pad("-", wq) << pad("-", wv) << pad("-", wl) << "ERROR " << r.error_kind
+          << ": " << r.error_message << tag << "\n";
       continue;
     }
     for (const Check& c : r.checks) {
@@ -186,7 +188,8 @@ void write_summary_text(std::ostream& out, const BatchSummary& s, const std::str
     }
   }
   out << "\n" << s.results.size() << " case" << (s.results.size() == 1 ? "" : "s");
-  if (s.shard.count > 1) out << " (shard " << s.shard.index << "/" << s.shard.count << " of " << s.cases_total << ")";
+  if (s.shard.count > 1)
+    out << " (shard " << s.shard.index << "/" << s.shard.count << " of " << s.cases_total << ")";
   if (s.merged_shards > 0) out << " (merged from " << s.merged_shards << " shard summaries)";
   out << ": " << s.count(Verdict::Pass) << " PASS, " << s.count(Verdict::Fail) << " FAIL, "
       << s.count(Verdict::Error) << " ERROR; ran " << s.ran << ", resumed " << s.resumed << "\n";

@@ -1,6 +1,6 @@
 // `ergpath check`: runs a batch manifest of mechanism checks; the exit code gates a pipeline.
-#include <CLI/CLI.hpp>
 #include <unistd.h>
+#include <CLI/CLI.hpp>
 
 #include <iostream>
 #include <memory>
@@ -72,7 +72,8 @@ int run_check(const CheckArgs& a, std::ostream& out) {
 void add_check_command(CLI::App& app, std::vector<Command>& commands) {
   auto args = std::make_shared<CheckArgs>();
   CLI::App* cmd = app.add_subcommand(
-      "check", "Run a manifest of mechanism checks against their limits (exit 0 pass, 1 limit failed, 2 error)");
+      "check",
+      "Run a manifest of mechanism checks against their limits (exit 0 pass, 1 limit failed, 2 error)");
   cmd->add_option("MANIFEST", args->manifest, "TOML manifest of cases (see docs/batch.md)")->required();
   cmd->add_option("--jobs", args->jobs, "Cases run at once (default: one per hardware thread)")
       ->check(CLI::PositiveNumber);

@@ -36,7 +36,8 @@ int run_merge(const MergeArgs& a, std::ostream& out) {
 
 void add_merge_command(CLI::App& app, std::vector<Command>& commands) {
   auto args = std::make_shared<MergeArgs>();
-  CLI::App* cmd = app.add_subcommand("merge", "Combine shard summaries of `check --shard` runs into one summary");
+  CLI::App* cmd =
+      app.add_subcommand("merge", "Combine shard summaries of `check --shard` runs into one summary");
   cmd->add_option("SUMMARY", args->summaries, "Summary files written by check --results (one per shard)")
       ->required();
   cmd->add_option("--output", args->output, "Write the merged summary JSON to this file (atomically)");

@@ -73,7 +73,8 @@ TEST(CheckCommand, DemoValuesMatchTheirClosedForms) {
   // Hatch, closing along the 600 mm arc from (0, 0, 0.6) to (0, 0.6, 0) m: weight m g h; zero-free-length
   // spring to A = (0, -0.2, 0.8): -(k/2)(|r1-A|^2 - |r0-A|^2); constant drag times arc length r pi/2.
   const double hatch = 12.0 * kGn * 0.6 - 0.5 * 100.0 * (1.28 - 0.08) - 5.0 * 0.6 * M_PI / 2;
-  EXPECT_NEAR(case_named(s, "hatch-close").at("values").at("work_J").get<double>(), hatch, std::abs(hatch) * kDemoRel);
+  EXPECT_NEAR(case_named(s, "hatch-close").at("values").at("work_J").get<double>(), hatch,
+              std::abs(hatch) * kDemoRel);
   // Drawer: Coulomb friction mu m g over 0.5 m; the Gaussian detent integrates to -fd wd sqrt(pi)
   // (its tails beyond the travel are below exp(-225)).
   const double drawer = -0.05 * 18.0 * kGn * 0.5 - 20.0 * 0.01 * std::sqrt(M_PI);
@@ -111,18 +112,27 @@ TEST(CheckCommand, OrderIsTheManifestsWithOneOrFourJobs) {
 
 // A manifest in a temp folder mixing good cases with broken ones, on the real fixtures.
 std::string write_mixed_manifest(const std::string& dir) {
-  const std::string text = "[defaults]\nlength_unit = \"m\"\n"
-                           "[[case]]\nname = \"lift-weight\"\nmodel = \"" + kFixtures + "/lift_track_mm.stp\"\n"
-                           "start_mm = [0, 0, 0]\n[case.forces]\nw = \"0, 0, -25*g_n\"\n"
-                           "[case.limits]\nwork_min_J = -300\n"
-                           "[[case]]\nname = \"gap\"\nmodel = \"" + kFixtures + "/lift_track_mm.stp\"\n"
-                           "path = \"edges:1,4\"\n[case.forces]\nw = \"0, 0, -1\"\n[case.limits]\nwork_min_J = -1\n"
-                           "[[case]]\nname = \"no-model\"\nmodel = \"missing.stp\"\n"
-                           "[case.forces]\nw = \"0, 0, -1\"\n[case.limits]\nwork_min_J = -1\n"
-                           "[[case]]\nname = \"typo\"\nmodel = \"" + kFixtures + "/drawer_slide.stp\"\n"
-                           "[case.forces]\nw = \"0, 0, -1 +* 2\"\n[case.limits]\nwork_min_J = -1\n"
-                           "[[case]]\nname = \"drawer-length\"\nmodel = \"" + kFixtures + "/drawer_slide.stp\"\n"
-                           "[case.forces]\nw = \"0, 0, -1\"\n[case.limits]\nlength_min_m = 0.49\n";
+  const std::string text =
+      "[defaults]\nlength_unit = \"m\"\n"
+      "[[case]]\nname = \"lift-weight\"\nmodel = \"" +
+      kFixtures +
+      "/lift_track_mm.stp\"\n"
+      "start_mm = [0, 0, 0]\n[case.forces]\nw = \"0, 0, -25*g_n\"\n"
+      "[case.limits]\nwork_min_J = -300\n"
+      "[[case]]\nname = \"gap\"\nmodel = \"" +
+      kFixtures +
+      "/lift_track_mm.stp\"\n"
+      "path = \"edges:1,4\"\n[case.forces]\nw = \"0, 0, -1\"\n[case.limits]\nwork_min_J = -1\n"
+      "[[case]]\nname = \"no-model\"\nmodel = \"missing.stp\"\n"
+      "[case.forces]\nw = \"0, 0, -1\"\n[case.limits]\nwork_min_J = -1\n"
+      "[[case]]\nname = \"typo\"\nmodel = \"" +
+      kFixtures +
+      "/drawer_slide.stp\"\n"
+      "[case.forces]\nw = \"0, 0, -1 +* 2\"\n[case.limits]\nwork_min_J = -1\n"
+      "[[case]]\nname = \"drawer-length\"\nmodel = \"" +
+      kFixtures +
+      "/drawer_slide.stp\"\n"
+      "[case.forces]\nw = \"0, 0, -1\"\n[case.limits]\nlength_min_m = 0.49\n";
   write_text(dir + "/mixed.toml", text);
   return dir + "/mixed.toml";
 }
@@ -142,9 +152,10 @@ TEST(CheckCommand, BrokenCasesAreErrorsTheOthersStillPassAndTheExitIsTwo) {
 
 TEST(CheckCommand, AllPassingManifestExitsZero) {
   const std::string dir = make_temp_dir("ergpath_check_");
-  write_text(dir + "/ok.toml", "[[case]]\nname = \"slide\"\nmodel = \"" + kFixtures +
-                                   "/drawer_slide.stp\"\nlength_unit = \"m\"\n[case.forces]\nf = \"-2, 0, 0\"\n"
-                                   "[case.limits]\nwork_min_J = -1.5\nwork_max_J = 0\n");
+  write_text(dir + "/ok.toml",
+             "[[case]]\nname = \"slide\"\nmodel = \"" + kFixtures +
+                 "/drawer_slide.stp\"\nlength_unit = \"m\"\n[case.forces]\nf = \"-2, 0, 0\"\n"
+                 "[case.limits]\nwork_min_J = -1.5\nwork_max_J = 0\n");
   const auto p = run_process(kCli, {"check", dir + "/ok.toml"});
   EXPECT_EQ(p.exit_code, 0) << p.out << p.err;
   EXPECT_NE(p.out.find("1 PASS, 0 FAIL, 0 ERROR"), std::string::npos) << p.out;
@@ -178,8 +189,8 @@ TEST(CheckCommand, ResumeAfterAnInterruptedRunLosesNothingAndRepeatsNothing) {
   for (int i = 0; i < 3; ++i) cut = text.find('\n', cut) + 1;
   write_text(log, text.substr(0, cut + 25));
 
-  const auto again = run_process(kCli, {"check", kDemo, "--jobs", "2", "--results", log, "--resume", "--format",
-                                        "json"});
+  const auto again =
+      run_process(kCli, {"check", kDemo, "--jobs", "2", "--results", log, "--resume", "--format", "json"});
   ASSERT_EQ(again.exit_code, 1) << again.err;
   const nlohmann::json s = nlohmann::json::parse(again.out);
   EXPECT_EQ(s.at("resumed"), 3);

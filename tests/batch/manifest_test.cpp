@@ -160,8 +160,9 @@ f = "k, 0, 0"
 
 TEST(Manifest, InlineFieldKeysAreLaidOverTheFieldFile) {
   const std::string dir = testing::fresh_dir("ergpath_manifest_");
-  testing::write_file(dir + "/loads.toml",
-                      "length_unit = \"mm\"\n[constants]\nm = 1.0\nk = 3.0\n[forces]\nw = \"0, 0, -m*g_n\"\n");
+  testing::write_file(
+      dir + "/loads.toml",
+      "length_unit = \"mm\"\n[constants]\nm = 1.0\nk = 3.0\n[forces]\nw = \"0, 0, -m*g_n\"\n");
   testing::write_file(dir + "/batch.toml", R"(
 [defaults]
 length_unit = "m"
@@ -195,9 +196,10 @@ work_max_J = 1
 }
 
 TEST(Manifest, BrokenFieldFileSurfacesWhenTheCaseIsResolvedNotWhenTheManifestIsRead) {
-  const Manifest m = parse_manifest_text(std::string(kMinimal) + "[[case]]\nname = \"b\"\nmodel = \"m\"\n"
-                                                                 "field_file = \"missing.toml\"\n"
-                                                                 "[case.limits]\nwork_max_J = 1\n",
+  const Manifest m = parse_manifest_text(std::string(kMinimal) +
+                                             "[[case]]\nname = \"b\"\nmodel = \"m\"\n"
+                                             "field_file = \"missing.toml\"\n"
+                                             "[case.limits]\nwork_max_J = 1\n",
                                          "demo.toml", "");
   try {
     resolve_field(m.cases[1]);

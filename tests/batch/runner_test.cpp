@@ -102,8 +102,9 @@ std::string many_cases(int count) {
   std::string s;
   for (int i = 0; i < count; ++i) {
     const bool line = i % 2 == 0;
-    s += "[[case]]\nname = \"extra-" + std::to_string(i) + "\"\nmodel = \"" + (line ? "line.txt" : "circle.txt") +
-         "\"\n[case.constants]\nk = " + std::to_string(i + 1) + "\n[case.forces]\nf = \"k, -k*y, 0\"\n"
+    s += "[[case]]\nname = \"extra-" + std::to_string(i) + "\"\nmodel = \"" +
+         (line ? "line.txt" : "circle.txt") + "\"\n[case.constants]\nk = " + std::to_string(i + 1) +
+         "\n[case.forces]\nf = \"k, -k*y, 0\"\n"
          "[case.limits]\nwork_magnitude_max_J = 1000.0\n";
   }
   return s;
@@ -300,8 +301,8 @@ TEST(RunBatch, ShardSummariesMergedEqualOneFullRun) {
     RunOptions o;
     o.shard = {k, 3};
     // Through the JSON file form, as the merge command reads them.
-    shards.push_back(summary_from_json(nlohmann::json::parse(summary_json(run(f.manifest, 1, nullptr, o)).dump()),
-                                       "shard"));
+    shards.push_back(summary_from_json(
+        nlohmann::json::parse(summary_json(run(f.manifest, 1, nullptr, o)).dump()), "shard"));
   }
   const BatchSummary merged = merge_summaries(shards);
   EXPECT_EQ(stable(merged), stable(full));

@@ -54,7 +54,9 @@ TEST(MergeSummaries, SummariesOfDifferentManifestsAreRefused) {
   EXPECT_NE(std::string(e.what()).find("different manifests"), std::string::npos);
 }
 
-TEST(MergeSummaries, NothingToMergeIsABadManifest) { EXPECT_EQ(merge_error({}).kind(), ErrorKind::BadManifest); }
+TEST(MergeSummaries, NothingToMergeIsABadManifest) {
+  EXPECT_EQ(merge_error({}).kind(), ErrorKind::BadManifest);
+}
 
 TEST(MergeSummaries, ModelReadsOfTheShardsAddUp) {
   const BatchSummary m = merge_summaries({shard(0, 2, 4), shard(1, 2, 4)});

@@ -30,8 +30,9 @@ class TextModel : public LoadedModel {
       p.segments.push_back({std::make_shared<LineCurve>(Vec3{n_[0], n_[1], n_[2]}, Vec3{n_[3], n_[4], n_[5]}),
                             request.reverse, 1, ""});
     } else {
-      p.segments.push_back({std::make_shared<EllipseCurve>(Vec3{n_[0], n_[1], 0.0}, n_[2], n_[2], 0.0, 2 * M_PI),
-                            request.reverse, 1, ""});
+      p.segments.push_back(
+          {std::make_shared<EllipseCurve>(Vec3{n_[0], n_[1], 0.0}, n_[2], n_[2], 0.0, 2 * M_PI),
+           request.reverse, 1, ""});
       p.closed = true;
     }
     return p;

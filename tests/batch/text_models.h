@@ -1,7 +1,8 @@
 // Test models described by one line of text, so runner tests need no CAD kernel and know exact answers.
 //
 //   line X0 Y0 Z0 X1 Y1 Z1      a straight edge, millimetres
-//   circle CX CY R              a full circle in the plane z = 0, counter-clockwise, millimetres (closed path)
+//   circle CX CY R              a full circle in the plane z = 0, counter-clockwise, millimetres (closed
+//   path)
 //
 // Only the selector "all" is understood; any other raises Error(BadSelector), which tests use as a
 // broken case. A missing file raises Error(UnreadableFile).

@@ -14,8 +14,8 @@
 #include <chrono>
 #include <cstdio>
 #include <cstdlib>
-#include <string>
 #include <set>
+#include <string>
 #include <thread>
 #include <vector>
 
@@ -44,8 +44,8 @@ double process_cpu_seconds() {
 struct Timed {
   double seconds = 0.0;
   long parses = 0;
-  std::size_t threads = 0;  // distinct threads that finished a case
-  double cpu_seconds = 0.0; // user + system time of the process during the run
+  std::size_t threads = 0;   // distinct threads that finished a case
+  double cpu_seconds = 0.0;  // user + system time of the process during the run
   BatchSummary summary;
 };
 
@@ -79,9 +79,12 @@ int main(int argc, char** argv) {
   int rounds = 5;
   for (int i = 1; i < argc; ++i) {
     const std::string a = argv[i];
-    if (a == "--copies" && i + 1 < argc) copies = std::atoi(argv[++i]);
-    else if (a == "--rounds" && i + 1 < argc) rounds = std::atoi(argv[++i]);
-    else manifest_file = a;
+    if (a == "--copies" && i + 1 < argc)
+      copies = std::atoi(argv[++i]);
+    else if (a == "--rounds" && i + 1 < argc)
+      rounds = std::atoi(argv[++i]);
+    else
+      manifest_file = a;
   }
   const Manifest demo = read_manifest(manifest_file);
   Manifest big = demo;
@@ -113,17 +116,17 @@ int main(int argc, char** argv) {
     pass = b.summary.count(Verdict::Pass);
     fail = b.summary.count(Verdict::Fail);
     error = b.summary.count(Verdict::Error);
-    std::printf("  round %d: jobs 1 %.3f s (cpu %.3f s), jobs 2 %.3f s (cpu %.3f s), ratio %.2f\n", r + 1, a.seconds,
-                a.cpu_seconds, b.seconds, b.cpu_seconds, a.seconds / b.seconds);
+    std::printf("  round %d: jobs 1 %.3f s (cpu %.3f s), jobs 2 %.3f s (cpu %.3f s), ratio %.2f\n", r + 1,
+                a.seconds, a.cpu_seconds, b.seconds, b.cpu_seconds, a.seconds / b.seconds);
   }
   const double m1 = median(t1), m2 = median(t2);
-  std::printf("median wall time: jobs 1 %.3f s (%.2f ms/case), jobs 2 %.3f s\n", m1, 1e3 * m1 / big.cases.size(),
-              m2);
+  std::printf("median wall time: jobs 1 %.3f s (%.2f ms/case), jobs 2 %.3f s\n", m1,
+              1e3 * m1 / big.cases.size(), m2);
   std::printf("speed-up jobs 2 vs jobs 1: %.2f (goal >= 1.8)\n", m1 / m2);
   std::printf("median process CPU time: jobs 1 %.3f s, jobs 2 %.3f s (ratio %.2f; 1.00 = no contention)\n",
               median(c1), median(c2), median(c2) / median(c1));
-  std::printf("model files parsed per run: %ld with jobs 1, %ld with jobs 2 (distinct models: %zu)\n", parses1,
-              parses2, big.cases.empty() ? 0 : timed_run(demo, 1).summary.distinct_models);
+  std::printf("model files parsed per run: %ld with jobs 1, %ld with jobs 2 (distinct models: %zu)\n",
+              parses1, parses2, big.cases.empty() ? 0 : timed_run(demo, 1).summary.distinct_models);
   std::printf("threads that ran cases with jobs 2: %zu\n", threads2);
   std::printf("verdicts per run: %zu PASS, %zu FAIL, %zu ERROR\n", pass, fail, error);
   return parses1 == parses2 && error == 0 ? 0 : 1;
