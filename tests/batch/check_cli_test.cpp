@@ -11,10 +11,21 @@
 
 namespace {
 
-using ergpath::testing::make_temp_dir;
 using ergpath::testing::read_text;
 using ergpath::testing::run_process;
 using ergpath::testing::write_text;
+
+// A fresh temp folder, removed with its contents when the test ends.
+struct TempDir {
+  explicit TempDir(const std::string& prefix) : path(ergpath::testing::make_temp_dir(prefix)) {}
+  ~TempDir() {
+    std::error_code ec;
+    std::filesystem::remove_all(path, ec);
+  }
+  operator const std::string&() const { return path; }
+  std::string operator+(const std::string& tail) const { return path + tail; }
+  std::string path;
+};
 
 const std::string kCli = ERGPATH_CLI;
 const std::string kFixtures = ERGPATH_FIXTURES_DIR;
@@ -138,7 +149,7 @@ std::string write_mixed_manifest(const std::string& dir) {
 }
 
 TEST(CheckCommand, BrokenCasesAreErrorsTheOthersStillPassAndTheExitIsTwo) {
-  const std::string dir = make_temp_dir("ergpath_check_");
+  const TempDir dir("ergpath_check_");
   const auto p = run_process(kCli, {"check", write_mixed_manifest(dir), "--format", "json"});
   ASSERT_EQ(p.exit_code, 2) << p.err;
   const nlohmann::json s = nlohmann::json::parse(p.out);
@@ -151,7 +162,7 @@ TEST(CheckCommand, BrokenCasesAreErrorsTheOthersStillPassAndTheExitIsTwo) {
 }
 
 TEST(CheckCommand, AllPassingManifestExitsZero) {
-  const std::string dir = make_temp_dir("ergpath_check_");
+  const TempDir dir("ergpath_check_");
   write_text(dir + "/ok.toml",
              "[[case]]\nname = \"slide\"\nmodel = \"" + kFixtures +
                  "/drawer_slide.stp\"\nlength_unit = \"m\"\n[case.forces]\nf = \"-2, 0, 0\"\n"
@@ -162,7 +173,7 @@ TEST(CheckCommand, AllPassingManifestExitsZero) {
 }
 
 TEST(CheckCommand, UnreadableManifestIsOneLineNamingTheLineAndExitTwo) {
-  const std::string dir = make_temp_dir("ergpath_check_");
+  const TempDir dir("ergpath_check_");
   write_text(dir + "/bad.toml", "[[case]]\nname = \"x\"\nmodel = \"m.stp\"\nspeed = 3\n");
   const auto p = run_process(kCli, {"check", dir + "/bad.toml"});
   EXPECT_EQ(p.exit_code, 2);
@@ -178,7 +189,7 @@ TEST(CheckCommand, ResumeWithoutAResultsLogIsABadOption) {
 }
 
 TEST(CheckCommand, ResumeAfterAnInterruptedRunLosesNothingAndRepeatsNothing) {
-  const std::string dir = make_temp_dir("ergpath_resume_");
+  const TempDir dir("ergpath_resume_");
   const std::string log = dir + "/run.jsonl";
   const auto full = run_process(kCli, {"check", kDemo, "--jobs", "2", "--results", log, "--format", "json"});
   ASSERT_EQ(full.exit_code, 1) << full.err;
@@ -216,7 +227,7 @@ TEST(CheckCommand, ResumeAfterAnInterruptedRunLosesNothingAndRepeatsNothing) {
 }
 
 TEST(MergeCommand, ShardedRunsMergedEqualOneFullRun) {
-  const std::string dir = make_temp_dir("ergpath_shards_");
+  const TempDir dir("ergpath_shards_");
   const auto full = run_process(kCli, {"check", kDemo, "--format", "json"});
   std::vector<std::string> summaries;
   for (int k = 0; k < 4; ++k) {  // four shards of six cases: two shards get one case each
@@ -240,7 +251,7 @@ TEST(MergeCommand, ShardedRunsMergedEqualOneFullRun) {
 }
 
 TEST(MergeCommand, MissingShardIsAnErrorExitTwo) {
-  const std::string dir = make_temp_dir("ergpath_shards_");
+  const TempDir dir("ergpath_shards_");
   run_process(kCli, {"check", kDemo, "--shard", "0/2", "--results", dir + "/a.jsonl"});
   const auto m = run_process(kCli, {"merge", dir + "/a.summary.json"});
   EXPECT_EQ(m.exit_code, 2);

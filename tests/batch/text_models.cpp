@@ -1,6 +1,7 @@
 #include "text_models.h"
 
 #include <cstdlib>
+#include <filesystem>
 #include <fstream>
 #include <sstream>
 #include <stdexcept>
@@ -62,12 +63,29 @@ ModelLoader text_model_loader(std::atomic<int>* loads) {
   };
 }
 
+namespace {
+
+// Folders made by fresh_dir, removed when the test program ends.
+struct MadeDirs {
+  std::vector<std::string> dirs;
+  ~MadeDirs() {
+    for (const std::string& d : dirs) {
+      std::error_code ec;
+      std::filesystem::remove_all(d, ec);
+    }
+  }
+};
+MadeDirs made_dirs;
+
+}  // namespace
+
 std::string fresh_dir(const std::string& prefix) {
   const char* tmp = std::getenv("TMPDIR");
   std::string tmpl = std::string(tmp ? tmp : "/tmp") + "/" + prefix + "XXXXXX";
   std::vector<char> buf(tmpl.begin(), tmpl.end());
   buf.push_back('\0');
   if (!mkdtemp(buf.data())) throw std::runtime_error("mkdtemp failed");
+  made_dirs.dirs.push_back(buf.data());
   return buf.data();
 }
 

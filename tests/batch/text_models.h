@@ -18,7 +18,7 @@ namespace ergpath::batch::testing {
 /// Loader of text models; counts its calls in `loads` when given.
 ModelLoader text_model_loader(std::atomic<int>* loads = nullptr);
 
-/// A fresh empty folder under the temp directory.
+/// A fresh empty folder under the temp directory, removed with its contents when the test program ends.
 std::string fresh_dir(const std::string& prefix);
 void write_file(const std::string& path, const std::string& text);
 std::string read_file(const std::string& path);
