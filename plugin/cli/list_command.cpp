@@ -9,21 +9,13 @@
 #include "kernel_adapters/occt/step_model.h"
 #include "plugin/cli/app.h"
 #include "plugin/cli/field_options.h"
+#include "plugin/cli/list_command.h"
 #include "plugin/core/error.h"
 #include "plugin/report/edge_listing.h"
 
 namespace ergpath::cli {
 
 namespace {
-
-struct ListArgs {
-  std::string model;
-  std::string format = "text";
-  std::string types;  // comma-separated type names
-  std::string name;   // glob
-  std::optional<double> min_length_m, max_length_m, within_mm;
-  std::string near;  // "X,Y,Z" mm
-};
 
 std::string number(double v) {
   std::ostringstream os;
@@ -32,9 +24,10 @@ std::string number(double v) {
   return os.str();
 }
 
-int run_list(const ListArgs& a, std::ostream& out) {
+// The adapter's filter for `a`, and the descriptions the listing summary shows; parsing comes before the
+// model is read, so a mistyped option is reported whatever the file.
+occt::EdgeFilter make_filter(const ListArgs& a, report::ListingSummary& summary) {
   occt::EdgeFilter filter;
-  report::ListingSummary summary;
   if (!a.types.empty()) {
     std::stringstream ss(a.types);
     for (std::string t; std::getline(ss, t, ',');) filter.types.push_back(occt::parse_curve_type(t));
@@ -55,7 +48,14 @@ int run_list(const ListArgs& a, std::ostream& out) {
   }
   filter.within_mm = a.within_mm;
 
-  const occt::StepModel model = occt::StepModel::read(a.model);
+  return filter;
+}
+
+}  // namespace
+
+int run_list(const occt::StepModel& model, const ListArgs& a, std::ostream& out) {
+  report::ListingSummary summary;
+  const occt::EdgeFilter filter = make_filter(a, summary);
   const std::vector<int> picked = occt::filter_edges(model, filter);
   const occt::Inventory inv = occt::edge_inventory(model);
 
@@ -97,26 +97,31 @@ int run_list(const ListArgs& a, std::ostream& out) {
   } else {
     report::write_edge_listing_text(out, rows, summary);
   }
-  return 0;
+  return summary.listed;
 }
 
-}  // namespace
+void add_list_options(CLI::App& cmd, ListArgs& a) {
+  cmd.add_option("--format", a.format, "text or json")->check(CLI::IsMember({"text", "json"}));
+  cmd.add_option("--type", a.types, "Only these types, comma-separated (line, circle, ..., bspline, offset)");
+  cmd.add_option("--name", a.name, "Only edges whose name matches this pattern ('*' and '?' wildcards)");
+  cmd.add_option("--min-length", a.min_length_m, "Only edges at least this long, m");
+  cmd.add_option("--max-length", a.max_length_m, "Only edges at most this long, m");
+  cmd.add_option("--near", a.near, "X,Y,Z in mm: the edge nearest this point (with --within: all edges that close)");
+  cmd.add_option("--within", a.within_mm, "With --near: every edge within this distance, mm");
+}
 
 void add_list_command(CLI::App& app, std::vector<Command>& commands) {
   auto args = std::make_shared<ListArgs>();
   CLI::App* cmd =
       app.add_subcommand("list", "List a STEP model's edges: index, type, ends, length, name, topology");
   cmd->add_option("MODEL", args->model, "STEP file (AP203/AP214/AP242)")->required();
-  cmd->add_option("--format", args->format, "text or json")->check(CLI::IsMember({"text", "json"}));
-  cmd->add_option("--type", args->types,
-                  "Only these types, comma-separated (line, circle, ..., bspline, offset)");
-  cmd->add_option("--name", args->name, "Only edges whose name matches this pattern ('*' and '?' wildcards)");
-  cmd->add_option("--min-length", args->min_length_m, "Only edges at least this long, m");
-  cmd->add_option("--max-length", args->max_length_m, "Only edges at most this long, m");
-  cmd->add_option("--near", args->near,
-                  "X,Y,Z in mm: the edge nearest this point (with --within: all edges that close)");
-  cmd->add_option("--within", args->within_mm, "With --near: every edge within this distance, mm");
-  commands.push_back({cmd, [args](std::ostream& out) { return run_list(*args, out); }});
+  add_list_options(*cmd, *args);
+  commands.push_back({cmd, [args](std::ostream& out) {
+                        report::ListingSummary ignored;
+                        make_filter(*args, ignored);
+                        run_list(occt::StepModel::read(args->model), *args, out);
+                        return 0;
+                      }});
 }
 
 }  // namespace ergpath::cli

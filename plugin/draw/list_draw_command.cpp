@@ -1,20 +1,16 @@
-// ergpath_list: the numbered edges of a session shape, written by the report's edge-listing writers.
-//
-// The rows carry what StepModel knows of each edge (index, type, ends, length, name, flags); the face
-// and wire columns stay empty until the CLI's `list` exposes its own row builder to share.
+// ergpath_list: the numbered edges of a session shape, listed by the CLI's run_list (same rows, filters
+// and summary as `ergpath list`).
 #include <CLI/CLI.hpp>
 #include <Draw_Interpretor.hxx>
 
 #include <memory>
 #include <sstream>
 #include <string>
-#include <vector>
 
-#include "plugin/core/curve.h"
+#include "plugin/cli/list_command.h"
 #include "plugin/draw/draw_command.h"
 #include "plugin/draw/draw_commands.h"
 #include "plugin/draw/session_shape.h"
-#include "plugin/report/edge_listing.h"
 
 namespace ergpath::draw {
 
@@ -22,20 +18,19 @@ namespace {
 
 struct ListCommandArgs {
   std::string shape;
-  std::string format = "text";
+  cli::ListArgs list;
 };
 
 std::unique_ptr<CLI::App> list_options(ListCommandArgs& a) {
   auto app = std::make_unique<CLI::App>(
       "The edges of SHAPE, a DRAW shape taken in millimetres, numbered 1..N as ergpath numbers the same "
-      "shape "
-      "read from a STEP file: type, end points (mm), length (m), name. Prints the table; the Tcl result is "
-      "the "
-      "number of edges, or the JSON listing (not printed) with --format json.",
+      "shape read from a STEP file: type, end points (mm), length (m), flags, faces, wires, name; the "
+      "filters narrow the list as for `ergpath list`. Prints the table; the Tcl result is the number of "
+      "edges listed, or the JSON listing (not printed) with --format json.",
       "ergpath_list");
   app->add_option("SHAPE", a.shape, "DRAW shape: an edge, a wire, a compound of edges, a solid, ...")
       ->required();
-  app->add_option("--format", a.format, "text or json")->check(CLI::IsMember({"text", "json"}));
+  cli::add_list_options(*app, a.list);
   return app;
 }
 
@@ -44,35 +39,10 @@ int list_command(Draw_Interpretor& di, Standard_Integer argc, const char** argv)
   const auto app = list_options(a);
   return run_draw_command(di, argc, argv, *app, usage_text(*app), [&]() {
     const occt::StepModel model = session_model(a.shape);
-    std::vector<report::ListedEdge> rows;
-    report::ListingSummary summary;
-    summary.file = model.file();
-    summary.file_unit = model.file_unit();
-    summary.schema = model.schema();
-    summary.application_protocol = model.application_protocol();
-    summary.edge_count = model.edge_count();
-    for (const occt::EdgeInfo& e : model.edges()) {
-      report::ListedEdge row;
-      row.index = e.index;
-      row.type = to_string(e.type);
-      row.start_mm = e.start_mm;
-      row.end_mm = e.end_mm;
-      row.length_m = e.length_m;
-      row.name = e.name;
-      row.degenerated = e.degenerated;
-      row.closed = e.closed;
-      ++summary.by_type[row.type];
-      summary.degenerated += e.degenerated ? 1 : 0;
-      rows.push_back(std::move(row));
-    }
-    summary.listed = static_cast<int>(rows.size());
     std::ostringstream out;
-    if (a.format == "json") {
-      report::write_edge_listing_json(out, rows, summary);
-      return CommandOutput{"", out.str()};
-    }
-    report::write_edge_listing_text(out, rows, summary);
-    return CommandOutput{out.str(), std::to_string(model.edge_count())};
+    const int listed = cli::run_list(model, a.list, out);
+    if (a.list.format == "json") return CommandOutput{"", out.str()};
+    return CommandOutput{out.str(), std::to_string(listed)};
   });
 }
 
