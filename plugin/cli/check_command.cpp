@@ -14,20 +14,10 @@
 #include "plugin/batch/step_model_source.h"
 #include "plugin/batch/summary.h"
 #include "plugin/cli/app.h"
+#include "plugin/cli/check_command.h"
 #include "plugin/core/error.h"
 
 namespace ergpath::cli {
-
-namespace {
-
-struct CheckArgs {
-  std::string manifest;
-  int jobs = 0;  // 0: one per hardware thread
-  std::string results;
-  bool resume = false;
-  std::string shard;
-  std::string format = "text";
-};
 
 int run_check(const CheckArgs& a, std::ostream& out) {
   if (a.resume && a.results.empty()) {
@@ -67,7 +57,14 @@ int run_check(const CheckArgs& a, std::ostream& out) {
   return summary.exit_code();
 }
 
-}  // namespace
+void add_check_options(CLI::App& cmd, CheckArgs& a) {
+  cmd.add_option("--jobs", a.jobs, "Cases run at once (default: one per hardware thread)")->check(CLI::PositiveNumber);
+  cmd.add_option("--results", a.results,
+                 "JSON Lines log, one case per line as it finishes; the summary goes to FILE.summary.json");
+  cmd.add_flag("--resume", a.resume, "Skip cases whose inputs digest is already in the --results log");
+  cmd.add_option("--shard", a.shard, "K/N: run cases K, K+N, K+2N, ... (0 <= K < N)");
+  cmd.add_option("--format", a.format, "text or json")->check(CLI::IsMember({"text", "json"}));
+}
 
 void add_check_command(CLI::App& app, std::vector<Command>& commands) {
   auto args = std::make_shared<CheckArgs>();
@@ -75,13 +72,7 @@ void add_check_command(CLI::App& app, std::vector<Command>& commands) {
       "check",
       "Run a manifest of mechanism checks against their limits (exit 0 pass, 1 limit failed, 2 error)");
   cmd->add_option("MANIFEST", args->manifest, "TOML manifest of cases (see docs/batch.md)")->required();
-  cmd->add_option("--jobs", args->jobs, "Cases run at once (default: one per hardware thread)")
-      ->check(CLI::PositiveNumber);
-  cmd->add_option("--results", args->results,
-                  "JSON Lines log, one case per line as it finishes; the summary goes to FILE.summary.json");
-  cmd->add_flag("--resume", args->resume, "Skip cases whose inputs digest is already in the --results log");
-  cmd->add_option("--shard", args->shard, "K/N: run cases K, K+N, K+2N, ... (0 <= K < N)");
-  cmd->add_option("--format", args->format, "text or json")->check(CLI::IsMember({"text", "json"}));
+  add_check_options(*cmd, *args);
   commands.push_back({cmd, [args](std::ostream& out) { return run_check(*args, out); }});
 }
 

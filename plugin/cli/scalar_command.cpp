@@ -9,6 +9,7 @@
 #include "kernel_adapters/occt/step_model.h"
 #include "plugin/cli/app.h"
 #include "plugin/cli/field_options.h"
+#include "plugin/cli/scalar_command.h"
 #include "plugin/core/error.h"
 #include "plugin/core/scalar_integral.h"
 #include "plugin/core/units.h"
@@ -18,18 +19,8 @@ namespace ergpath::cli {
 
 namespace {
 
-struct ScalarArgs {
-  PathCliOptions path;
-  std::string integrand;
-  std::vector<std::string> constants;
-  std::string length_unit = "m";
-  std::string from, to;
-  double tolerance = 1e-10;
-  long max_evaluations = 20000000;
-  std::string format = "text";
-};
-
-int run_scalar(const ScalarArgs& a, std::ostream& out) {
+// Tolerance and formula errors surface before any model is read or path built.
+ScalarFieldSpec checked_spec(const ScalarArgs& a) {
   if (!(a.tolerance > 0.0 && a.tolerance < 1.0)) {
     throw Error(ErrorKind::BadOption, "--tolerance must be a relative tolerance in (0, 1)");
   }
@@ -41,8 +32,23 @@ int run_scalar(const ScalarArgs& a, std::ostream& out) {
   spec.constants = make_field_spec(fo).constants;
   spec.length_unit_m = length_unit_m(a.length_unit);
   ScalarFieldEvaluator check(spec);
-  const occt::StepModel model = occt::StepModel::read(a.path.model);
-  const Path path = occt::build_path(model, occt::select_edges(model, a.path.selector), make_path_options(a.path));
+  return spec;
+}
+
+Path selected_path(const occt::StepModel& model, const ScalarArgs& a) {
+  return occt::build_path(model, occt::select_edges(model, a.path.selector), make_path_options(a.path));
+}
+
+}  // namespace
+
+ScalarResult run_scalar(const occt::StepModel& model, const ScalarArgs& a, std::ostream& out) {
+  checked_spec(a);
+  return run_scalar_on_path(model, selected_path(model, a), a, out);
+}
+
+ScalarResult run_scalar_on_path(const occt::StepModel&, const Path& path, const ScalarArgs& a,
+                                std::ostream& out) {
+  const ScalarFieldSpec spec = checked_spec(a);
   IntegrationOptions o;
   o.rel_tol = a.tolerance;
   o.max_evaluations = a.max_evaluations;
@@ -71,29 +77,35 @@ int run_scalar(const ScalarArgs& a, std::ostream& out) {
     out << "Mean of f over " << report::format_number(span) << " m: " << report::format_number(mean) << "\n";
     out << "Integrand evaluations: " << r.evaluations << "\n\n" << caution_line() << "\n";
   }
-  return 0;
+  return r;
 }
 
-}  // namespace
+void add_scalar_options(CLI::App& cmd, ScalarArgs& a) {
+  cmd.add_option("--path", a.path.selector, "Edges to travel (see docs/selectors.md)");
+  cmd.add_flag("--reverse", a.path.reverse, "Travel the whole path the other way");
+  cmd.add_option("--start", a.path.start, "X,Y,Z in mm: start an open chain at its end nearest this point");
+  cmd.add_option("--gap-tolerance", a.path.gap_tolerance_mm, "Largest gap between consecutive edges, mm");
+  cmd.add_option("--integrand", a.integrand, "f(x, y, z, s, tx, ty, tz), e.g. a linear density in kg/m")
+      ->required();
+  cmd.add_option("--const", a.constants, "Constant NAME=VALUE; repeatable");
+  cmd.add_option("--field-length-unit", a.length_unit, "Unit of x, y, z, s in the formula (default m)");
+  cmd.add_option("--from", a.from, "Integrate from this arc length (metres, or with a unit)");
+  cmd.add_option("--to", a.to, "Integrate up to this arc length (metres, or with a unit)");
+  cmd.add_option("--tolerance", a.tolerance, "Relative error target (default 1e-10)");
+  cmd.add_option("--max-evaluations", a.max_evaluations, "Budget of evaluations")->check(CLI::PositiveNumber);
+  cmd.add_option("--format", a.format, "text or json")->check(CLI::IsMember({"text", "json"}));
+}
 
 void add_scalar_command(CLI::App& app, std::vector<Command>& commands) {
   auto a = std::make_shared<ScalarArgs>();
   CLI::App* cmd = app.add_subcommand("scalar", "Scalar line integral of f ds along a path, and the mean of f");
   cmd->add_option("MODEL", a->path.model, "STEP file (AP203/AP214/AP242)")->required();
-  cmd->add_option("--path", a->path.selector, "Edges to travel (see docs/selectors.md)");
-  cmd->add_flag("--reverse", a->path.reverse, "Travel the whole path the other way");
-  cmd->add_option("--start", a->path.start, "X,Y,Z in mm: start an open chain at its end nearest this point");
-  cmd->add_option("--gap-tolerance", a->path.gap_tolerance_mm, "Largest gap between consecutive edges, mm");
-  cmd->add_option("--integrand", a->integrand, "f(x, y, z, s, tx, ty, tz), e.g. a linear density in kg/m")
-      ->required();
-  cmd->add_option("--const", a->constants, "Constant NAME=VALUE; repeatable");
-  cmd->add_option("--field-length-unit", a->length_unit, "Unit of x, y, z, s in the formula (default m)");
-  cmd->add_option("--from", a->from, "Integrate from this arc length (metres, or with a unit)");
-  cmd->add_option("--to", a->to, "Integrate up to this arc length (metres, or with a unit)");
-  cmd->add_option("--tolerance", a->tolerance, "Relative error target (default 1e-10)");
-  cmd->add_option("--max-evaluations", a->max_evaluations, "Budget of evaluations")->check(CLI::PositiveNumber);
-  cmd->add_option("--format", a->format, "text or json")->check(CLI::IsMember({"text", "json"}));
-  commands.push_back({cmd, [a](std::ostream& out) { return run_scalar(*a, out); }});
+  add_scalar_options(*cmd, *a);
+  commands.push_back({cmd, [a](std::ostream& out) {
+                        checked_spec(*a);
+                        run_scalar(occt::StepModel::read(a->path.model), *a, out);
+                        return 0;
+                      }});
 }
 
 }  // namespace ergpath::cli

@@ -11,7 +11,8 @@ namespace ergpath::draw {
 /// Registers every command below.
 void add_commands(Draw_Interpretor& di);
 
-/// ergpath_list SHAPE: the numbered edges of a session shape. Result: the edge count (or the JSON text).
+/// ergpath_list SHAPE ...: the numbered edges of a session shape, with the CLI's filters. Result: the
+/// number of edges listed (or the JSON text).
 void add_list_command(Draw_Interpretor& di);
 
 /// ergpath_work SHAPE ...: work along a shape's own path or a selection of its edges. Result: joules.
@@ -19,5 +20,12 @@ void add_work_command(Draw_Interpretor& di);
 
 /// ergpath_profile SHAPE ...: W(s) and F.T at stations. Result: a list of {s_m work_J force_N} triples.
 void add_profile_command(Draw_Interpretor& di);
+
+/// ergpath_scalar SHAPE --integrand F ...: integral of f ds along a shape. Result: (unit of f) x metres.
+void add_scalar_command(Draw_Interpretor& di);
+
+/// ergpath_check MANIFEST ...: a batch manifest run against its limits. Result: 0 pass, 1 fail, 2 error
+/// (or the summary JSON).
+void add_check_command(Draw_Interpretor& di);
 
 }  // namespace ergpath::draw

@@ -10,6 +10,8 @@ void add_commands(Draw_Interpretor& di) {
   add_list_command(di);
   add_work_command(di);
   add_profile_command(di);
+  add_scalar_command(di);
+  add_check_command(di);
 }
 
 }  // namespace ergpath::draw

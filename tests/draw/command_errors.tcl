@@ -4,7 +4,7 @@ source [file join $env(ERGPATH_TEST_DIR) check.tcl]
 pload MODELING
 pload -ErgPath ERGPATH
 
-foreach command {ergpath_list ergpath_work ergpath_profile} {
+foreach command {ergpath_list ergpath_work ergpath_profile ergpath_scalar ergpath_check} {
   check_true "$command is registered" {[llength [info commands $command]] == 1}
 }
 
