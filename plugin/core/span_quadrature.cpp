@@ -170,6 +170,7 @@ class Driver {
   QuadratureOptions o_;
   std::vector<double> buf_;
   std::vector<double> total_, total_error_;
+  std::vector<double> k_, g_, absk_, asc_, t_of_, tan_, mag_, f_values_;
   long evaluations_ = 0;
 };
 
@@ -177,8 +178,23 @@ void Driver::kronrod(Cell& c) {
   const auto& nodes = kronrod_nodes();
   const std::size_t n = nodes.size();
   const double mid = 0.5 * (c.va + c.vb), h = 0.5 * (c.vb - c.va);
-  std::vector<double> k(m_, 0.0), g(m_, 0.0), absk(m_, 0.0), asc(m_, 0.0);
-  std::vector<double> t_of(n), tan(n), mag(n), f(n * m_);
+  // Scratch buffers live in the driver: a few thousand pieces must not mean a few thousand allocations.
+  std::vector<double>& k = k_;
+  std::vector<double>& g = g_;
+  std::vector<double>& absk = absk_;
+  std::vector<double>& asc = asc_;
+  std::vector<double>& t_of = t_of_;
+  std::vector<double>& tan = tan_;
+  std::vector<double>& mag = mag_;
+  std::vector<double>& f = f_values_;
+  k.assign(m_, 0.0);
+  g.assign(m_, 0.0);
+  absk.assign(m_, 0.0);
+  asc.assign(m_, 0.0);
+  t_of.resize(n);
+  tan.resize(n);
+  mag.resize(n);
+  f.resize(n * m_);
   for (std::size_t i = 0; i < n; ++i) {
     NodeInfo info;
     t_of[i] = eval(c, mid + h * nodes[i].x, &f[i * m_], info);
@@ -238,11 +254,13 @@ bool Driver::exact_polynomial(Cell& c) {
     eval(c, mid + h * node.x, buf_.data(), info);
     for (std::size_t j = 0; j < m_; ++j) q[j] += node.wg * buf_[j];
   }
-  std::vector<double> e(m_);
-  for (std::size_t j = 0; j < m_; ++j) {
+  // Only the controlled components must agree: a scale component such as |F . dr| has kinks where
+  // F . dr changes sign and need not be a polynomial; it keeps its Kronrod estimate.
+  std::vector<double> e = c.error;
+  for (const Control& k : controls_) {
+    const std::size_t j = k.value;
     const double floor = kRoundoff * c.absk[j];
-    const double d = std::abs(c.value[j] - h * q[j]);
-    if (d > floor) return false;
+    if (std::abs(c.value[j] - h * q[j]) > floor) return false;
     e[j] = floor;
   }
   c.error = e;
@@ -388,6 +406,14 @@ QuadratureResult Driver::run() {
   if (o_.split_at_peaks) {
     for (std::size_t idx : fresh) {
       if (priority(cells[idx]) < kPeakSearchRatio) continue;
+      if (cells[idx].exactness_pending) {
+        // A polynomial span is proven exact for 12 evaluations, cheaper than a peak search.
+        cells[idx].exactness_pending = false;
+        add(cells[idx], -1.0);
+        const bool exact = exact_polynomial(cells[idx]);
+        add(cells[idx], 1.0);
+        if (exact) continue;
+      }
       std::vector<Cell> parts;
       if (!split_at_peak(cells[idx], parts)) continue;
       add(cells[idx], -1.0);
