@@ -73,7 +73,8 @@ std::string unquote(const std::string& selector, const std::string& text) {
 
 // A positive decimal index; values beyond int are reported as out of range by the caller (-1).
 long long parse_index(const std::string& selector, const std::string& text) {
-  if (text.empty() || !std::all_of(text.begin(), text.end(), [](char c) { return std::isdigit(static_cast<unsigned char>(c)); })) {
+  if (text.empty() || !std::all_of(text.begin(), text.end(),
+                                   [](char c) { return std::isdigit(static_cast<unsigned char>(c)); })) {
     bad(selector, "'" + text + "' is not an index (a whole number from 1)");
   }
   const std::string digits = text.substr(std::min(text.find_first_not_of('0'), text.size() - 1));
@@ -118,8 +119,8 @@ class Resolver {
 
   int checked_index(const char* what, long long i, int count) const {
     if (i < 1 || i > count) {
-      const std::string valid = count == 0 ? std::string("it has none")
-                                           : "valid: 1.." + std::to_string(count);
+      const std::string valid =
+          count == 0 ? std::string("it has none") : "valid: 1.." + std::to_string(count);
       throw Error(ErrorKind::UnknownEdge, model_.file() + ": " + what + " " +
                                               (i < 0 ? std::string("index") : std::to_string(i)) +
                                               " is out of range (" + valid + ")");
@@ -173,7 +174,8 @@ class Resolver {
     const Impl& impl = model_.impl();
     std::vector<int> ids;
     try {
-      for (BRepTools_WireExplorer ex(wire); ex.More(); ex.Next()) ids.push_back(impl.edges.FindIndex(ex.Current()));
+      for (BRepTools_WireExplorer ex(wire); ex.More(); ex.Next())
+        ids.push_back(impl.edges.FindIndex(ex.Current()));
     } catch (const Standard_Failure&) {
       ids.clear();
     }
@@ -182,12 +184,14 @@ class Resolver {
     if (ids.size() != total) {
       // The wire explorer follows shared vertices only; keep the stored order for the rest.
       ids.clear();
-      for (TopExp_Explorer ex(wire, TopAbs_EDGE); ex.More(); ex.Next()) ids.push_back(impl.edges.FindIndex(ex.Current()));
+      for (TopExp_Explorer ex(wire, TopAbs_EDGE); ex.More(); ex.Next())
+        ids.push_back(impl.edges.FindIndex(ex.Current()));
     }
     std::set<int> once;
     for (int id : ids) {
       if (!once.insert(id).second) {
-        bad(selector_, std::string(what) + " " + std::to_string(i) + " runs along seam edge " + std::to_string(id) +
+        bad(selector_, std::string(what) + " " + std::to_string(i) + " runs along seam edge " +
+                           std::to_string(id) +
                            " in both directions, so it is not one simple path; select its edges instead");
       }
     }
@@ -212,7 +216,8 @@ class Resolver {
 
   void near(const Vec3& p) {
     const int e = nearest_edge(model_, p);
-    if (e < 1) throw Error(ErrorKind::UnknownEdge, model_.file() + ": no edge with a 3-D curve to be near to");
+    if (e < 1)
+      throw Error(ErrorKind::UnknownEdge, model_.file() + ": no edge with a 3-D curve to be near to");
     add(e);
   }
 
@@ -237,7 +242,9 @@ std::vector<int> select_edges(const StepModel& model, const std::string& selecto
     const auto colon = item.find(':');
     const bool quoted_start = !item.empty() && item.front() == '"';
     std::string head = colon == std::string::npos || quoted_start ? "" : item.substr(0, colon);
-    if (!std::all_of(head.begin(), head.end(), [](char c) { return std::isalpha(static_cast<unsigned char>(c)); })) head.clear();
+    if (!std::all_of(head.begin(), head.end(),
+                     [](char c) { return std::isalpha(static_cast<unsigned char>(c)); }))
+      head.clear();
     const std::string arg = head.empty() ? item : trim(item.substr(colon + 1));
     if (head.empty()) {
       if (item == "all") {
@@ -263,10 +270,12 @@ std::vector<int> select_edges(const StepModel& model, const std::string& selecto
     } else if (head == "near") {
       kind.clear();
       if (i + 2 >= items.size()) bad(selector, "near: needs three coordinates X,Y,Z in mm");
-      r.near({parse_number(selector, arg), parse_number(selector, items[i + 1]), parse_number(selector, items[i + 2])});
+      r.near({parse_number(selector, arg), parse_number(selector, items[i + 1]),
+              parse_number(selector, items[i + 2])});
       i += 2;
     } else {
-      bad(selector, "unknown selector kind '" + head + ":' (use all, edge:, edges:, name:, wire:, face:, near:)");
+      bad(selector,
+          "unknown selector kind '" + head + ":' (use all, edge:, edges:, name:, wire:, face:, near:)");
     }
   }
   return r.result();

@@ -29,7 +29,9 @@ std::string point(const Vec3& p) { return "(" + mm(p.x) + ", " + mm(p.y) + ", " 
 // Union-find over end points.
 struct Disjoint {
   std::vector<int> parent;
-  explicit Disjoint(int n) : parent(static_cast<std::size_t>(n)) { std::iota(parent.begin(), parent.end(), 0); }
+  explicit Disjoint(int n) : parent(static_cast<std::size_t>(n)) {
+    std::iota(parent.begin(), parent.end(), 0);
+  }
   int find(int i) {
     while (parent[i] != i) i = parent[i] = parent[parent[i]];
     return i;
@@ -87,8 +89,8 @@ Path build_path(const StepModel& model, const std::vector<int>& edges, const Pat
                 std::vector<std::string>* notes) {
   const std::string& file = model.file();
   if (!std::isfinite(options.gap_tolerance_mm) || options.gap_tolerance_mm < 0.0) {
-    throw Error(ErrorKind::BadOption, "gap tolerance must be a finite length >= 0 mm, got " +
-                                          mm(options.gap_tolerance_mm));
+    throw Error(ErrorKind::BadOption,
+                "gap tolerance must be a finite length >= 0 mm, got " + mm(options.gap_tolerance_mm));
   }
   if (options.start_mm && !is_finite(*options.start_mm)) {
     throw Error(ErrorKind::BadOption, "start point must have finite coordinates (mm)");
@@ -99,7 +101,8 @@ Path build_path(const StepModel& model, const std::vector<int>& edges, const Pat
   std::set<int> seen;
   for (int e : edges) {
     if (e < 1 || e > model.edge_count()) {
-      throw Error(ErrorKind::UnknownEdge, file + ": edge " + std::to_string(e) + " is out of range (valid: 1.." +
+      throw Error(ErrorKind::UnknownEdge, file + ": edge " + std::to_string(e) +
+                                              " is out of range (valid: 1.." +
                                               std::to_string(model.edge_count()) + ")");
     }
     if (!seen.insert(e).second) {
@@ -107,7 +110,8 @@ Path build_path(const StepModel& model, const std::vector<int>& edges, const Pat
                   file + ": edge " + std::to_string(e) + " is selected twice; a path uses each edge once");
     }
     if (model.edge(e).degenerated) {
-      if (notes) notes->push_back("edge " + std::to_string(e) + " is degenerated (no 3-D curve) and was skipped");
+      if (notes)
+        notes->push_back("edge " + std::to_string(e) + " is degenerated (no 3-D curve) and was skipped");
       continue;
     }
     kept.push_back(e);
@@ -132,7 +136,8 @@ Path build_path(const StepModel& model, const std::vector<int>& edges, const Pat
     ids.erase(std::unique(ids.begin(), ids.end()), ids.end());
     std::string list;
     for (std::size_t i = 0; i < ids.size(); ++i) list += (i ? ", " : "") + std::to_string(ids[i]);
-    throw Error(ErrorKind::BranchInPath, file + ": edges " + list + " meet at " + point(ends[incident[v][0]]) +
+    throw Error(ErrorKind::BranchInPath, file + ": edges " + list + " meet at " +
+                                             point(ends[incident[v][0]]) +
                                              "; a path cannot branch, select one route");
   }
 
@@ -159,9 +164,10 @@ Path build_path(const StepModel& model, const std::vector<int>& edges, const Pat
           bb = b;
         }
     if (kept[ba / 2] > kept[bb / 2]) std::swap(ba, bb);
-    throw Error(ErrorKind::GapTooLarge, file + ": gap of " + mm(best) + " mm between edge " +
-                                            std::to_string(kept[ba / 2]) + " and edge " + std::to_string(kept[bb / 2]) +
-                                            " exceeds the chaining tolerance of " + mm(options.gap_tolerance_mm) + " mm");
+    throw Error(ErrorKind::GapTooLarge,
+                file + ": gap of " + mm(best) + " mm between edge " + std::to_string(kept[ba / 2]) +
+                    " and edge " + std::to_string(kept[bb / 2]) + " exceeds the chaining tolerance of " +
+                    mm(options.gap_tolerance_mm) + " mm");
   }
 
   // Every node has one or two incident ends: an open chain has two ends of degree one, a loop none.

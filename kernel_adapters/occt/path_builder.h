@@ -19,9 +19,9 @@
 namespace ergpath::occt {
 
 struct PathOptions {
-  bool reverse = false;               // travel the finished path the other way
-  std::optional<Vec3> start_mm;       // open chain: start at the end nearest this point
-  double gap_tolerance_mm = 1e-3;     // largest end-to-start gap accepted between consecutive edges
+  bool reverse = false;            // travel the finished path the other way
+  std::optional<Vec3> start_mm;    // open chain: start at the end nearest this point
+  double gap_tolerance_mm = 1e-3;  // largest end-to-start gap accepted between consecutive edges
 };
 
 /// Edge indices a selector names, in selector order. Throws Error(BadSelector) when the text does not

@@ -122,17 +122,22 @@ void read_header(STEPControl_Reader& reader, StepModel::Impl& impl) {
   impl.protocol = "unknown";
   const Handle(StepData_StepModel) model = reader.StepModel();
   if (model.IsNull()) return;
-  const Handle(HeaderSection_FileSchema) fs =
-      Handle(HeaderSection_FileSchema)::DownCast(model->HeaderEntity(STANDARD_TYPE(HeaderSection_FileSchema)));
+  const Handle(HeaderSection_FileSchema) fs = Handle(HeaderSection_FileSchema)::DownCast(
+      model->HeaderEntity(STANDARD_TYPE(HeaderSection_FileSchema)));
   if (fs.IsNull() || fs->NbSchemaIdentifiers() < 1 || fs->SchemaIdentifiersValue(1).IsNull()) return;
   std::string id = fs->SchemaIdentifiersValue(1)->ToCString();
   id = id.substr(0, id.find_first_of(" {"));
+  while (!id.empty() && id.back() == '.') id.pop_back();  // some writers end the identifier with '.'
+
   if (id.empty()) return;
   impl.schema = id;
   const std::string u = upper(id);
-  if (u.rfind("CONFIG_CONTROL_DESIGN", 0) == 0 || u.rfind("AP203", 0) == 0) impl.protocol = "AP203";
-  else if (u.rfind("AUTOMOTIVE_DESIGN", 0) == 0) impl.protocol = "AP214";
-  else if (u.rfind("AP242", 0) == 0) impl.protocol = "AP242";
+  if (u.rfind("CONFIG_CONTROL_DESIGN", 0) == 0 || u.rfind("AP203", 0) == 0)
+    impl.protocol = "AP203";
+  else if (u.rfind("AUTOMOTIVE_DESIGN", 0) == 0)
+    impl.protocol = "AP214";
+  else if (u.rfind("AP242", 0) == 0)
+    impl.protocol = "AP242";
 }
 
 // XDE route: names and assembly structure. Returns false when the transfer produced no shape.
@@ -148,8 +153,9 @@ bool read_with_xde(StepModel::Impl& impl, XdeEdgeLabels& labels) {
     }
   } closer{app, doc};
 
-  Interface_Static::SetIVal("read.stepcaf.subshapes.name", 1);
   STEPCAFControl_Reader reader;
+  // The XDE settings exist only once an XDE reader has initialised its controller.
+  Interface_Static::SetIVal("read.stepcaf.subshapes.name", 1);
   reader.SetNameMode(Standard_True);
   if (reader.ReadFile(impl.file.c_str()) != IFSelect_RetDone) {
     unreadable(impl.file, "the STEP reader rejected the file (syntax or schema error)");
@@ -208,8 +214,21 @@ EdgeInfo describe(const TopoDS_Edge& edge, int index) {
   curve.d1(curve.last(), info.end_mm, d);
   info.length_m = curve_length(curve, kLengthRelTol).length * kMetresPerMillimetre;
   // Precision::Confusion() (1e-7 mm) is the kernel's own distance below which points coincide.
-  info.closed = (!v1.IsNull() && v1.IsSame(v2)) || distance(info.start_mm, info.end_mm) <= Precision::Confusion();
+  info.closed =
+      (!v1.IsNull() && v1.IsSame(v2)) || distance(info.start_mm, info.end_mm) <= Precision::Confusion();
   return info;
+}
+
+// Fills impl.info (and the instance paths) for the edges already numbered in impl.edges.
+void describe_edges(StepModel::Impl& impl, const XdeEdgeLabels& labels) {
+  impl.info.reserve(impl.edges.Extent());
+  for (int i = 1; i <= impl.edges.Extent(); ++i) {
+    EdgeInfo info = describe(TopoDS::Edge(impl.edges(i)), i);
+    if (static_cast<std::size_t>(i) <= labels.name.size()) info.name = labels.name[i - 1];
+    impl.info.push_back(std::move(info));
+  }
+  impl.instance = labels.instance;
+  impl.instance.resize(impl.info.size());
 }
 
 }  // namespace
@@ -242,18 +261,28 @@ StepModel StepModel::read(const std::string& file) {
       read_plain(impl);
     }
     if (impl.edges.Extent() == 0) throw Error(ErrorKind::EmptyModel, file + ": the model holds no edges");
-    impl.info.reserve(impl.edges.Extent());
-    for (int i = 1; i <= impl.edges.Extent(); ++i) {
-      EdgeInfo info = describe(TopoDS::Edge(impl.edges(i)), i);
-      if (static_cast<std::size_t>(i) <= labels.name.size()) info.name = labels.name[i - 1];
-      impl.info.push_back(std::move(info));
-    }
-    impl.instance = labels.instance;
-    impl.instance.resize(impl.info.size());
+    describe_edges(impl, labels);
   } catch (const Standard_Failure& e) {
     std::string what = e.GetMessageString() ? e.GetMessageString() : "";
     unreadable(file, std::string("the kernel failed while reading (") + e.DynamicType()->Name() +
                          (what.empty() ? "" : ": " + what) + ")");
+  }
+  return model;
+}
+
+StepModel StepModel::from_impl(std::unique_ptr<Impl> impl) {
+  StepModel model;
+  model.impl_ = std::move(impl);
+  Impl& i = *model.impl_;
+  try {
+    OCC_CATCH_SIGNALS
+    i.edges.Clear();
+    i.info.clear();
+    if (!i.shape.IsNull()) TopExp::MapShapes(i.shape, TopAbs_EDGE, i.edges);
+    if (i.edges.Extent() == 0) throw Error(ErrorKind::EmptyModel, i.file + ": the shape holds no edges");
+    describe_edges(i, XdeEdgeLabels{});
+  } catch (const Standard_Failure& e) {
+    unreadable(i.file, std::string("the kernel failed on the shape (") + e.DynamicType()->Name() + ")");
   }
   return model;
 }
@@ -263,13 +292,16 @@ const std::string& StepModel::file_unit() const { return impl_->file_unit; }
 const std::string& StepModel::schema() const { return impl_->schema; }
 const std::string& StepModel::application_protocol() const { return impl_->protocol; }
 int StepModel::edge_count() const { return static_cast<int>(impl_->info.size()); }
-const EdgeInfo& StepModel::edge(int index) const { return impl_->info.at(static_cast<std::size_t>(index - 1)); }
+const EdgeInfo& StepModel::edge(int index) const {
+  return impl_->info.at(static_cast<std::size_t>(index - 1));
+}
 const std::vector<EdgeInfo>& StepModel::edges() const { return impl_->info; }
 
 std::unique_ptr<Curve> StepModel::make_curve(int index) const {
   if (index < 1 || index > edge_count()) {
     throw Error(ErrorKind::UnknownEdge, impl_->file + ": edge " + std::to_string(index) +
-                                            " is out of range (valid: 1.." + std::to_string(edge_count()) + ")");
+                                            " is out of range (valid: 1.." + std::to_string(edge_count()) +
+                                            ")");
   }
   if (edge(index).degenerated) {
     throw Error(ErrorKind::UnknownEdge,
@@ -280,7 +312,8 @@ std::unique_ptr<Curve> StepModel::make_curve(int index) const {
     return std::make_unique<EdgeCurve>(TopoDS::Edge(impl_->edges(index)));
   } catch (const Standard_Failure& e) {
     throw Error(ErrorKind::UnreadableFile, impl_->file + ": edge " + std::to_string(index) +
-                                               " has no usable 3-D geometry (" + e.DynamicType()->Name() + ")");
+                                               " has no usable 3-D geometry (" + e.DynamicType()->Name() +
+                                               ")");
   }
 }
 

@@ -15,9 +15,9 @@
 namespace ergpath::occt {
 
 struct EdgeInfo {
-  int index = 0;                    // 1-based, the kernel's unique-edge map order (stable per file)
+  int index = 0;  // 1-based, the kernel's unique-edge map order (stable per file)
   CurveType type = CurveType::Other;
-  Vec3 start_mm, end_mm;            // at the edge's first and last parameter
+  Vec3 start_mm, end_mm;  // at the edge's first and last parameter
   double length_m = 0.0;
   std::optional<std::string> name;  // STEP name, when the file carries one
   bool degenerated = false;         // no 3-D curve; skipped when integrating
@@ -57,6 +57,10 @@ class StepModel {
   /// Opaque kernel handle for adapter-internal code (selection by face/wire, DRAW plugin).
   struct Impl;
   const Impl& impl() const { return *impl_; }
+
+  /// Adapter-internal factory behind model_from_shape (shape_model.h): numbers and describes the edges
+  /// of impl->shape exactly as read() does. Throws Error(EmptyModel) naming impl->file when it has none.
+  static StepModel from_impl(std::unique_ptr<Impl> impl);
 
  private:
   StepModel();

@@ -20,9 +20,9 @@ struct StepModel::Impl {
   std::string file_unit;
   std::string schema;
   std::string protocol;
-  TopoDS_Shape shape;                 // the whole model in world coordinates, millimetres
-  TopTools_IndexedMapOfShape edges;   // index i (1-based) is edge i of the model
-  std::vector<EdgeInfo> info;         // info[i - 1] describes edge i
+  TopoDS_Shape shape;                                // the whole model in world coordinates, millimetres
+  TopTools_IndexedMapOfShape edges;                  // index i (1-based) is edge i of the model
+  std::vector<EdgeInfo> info;                        // info[i - 1] describes edge i
   std::vector<std::optional<std::string>> instance;  // assembly instance path of edge i, when known
   Handle(TDocStd_Document) document;  // XDE document when names were read through it; null otherwise
 };

@@ -46,7 +46,7 @@ struct Placed {
 
 using ByTShape = std::map<const TopoDS_TShape*, std::vector<Placed>>;
 
-void walk(const Handle(XCAFDoc_ShapeTool)& tool, const TDF_Label& label, const TopLoc_Location& loc,
+void walk(const Handle(XCAFDoc_ShapeTool) & tool, const TDF_Label& label, const TopLoc_Location& loc,
           const std::string& path, ByTShape& out) {
   if (XCAFDoc_ShapeTool::IsAssembly(label)) {
     TDF_LabelSequence components;
@@ -85,7 +85,7 @@ void collect_names(const TDF_Label& label, std::map<const TopoDS_TShape*, std::s
 
 }  // namespace
 
-XdeEdgeLabels read_xde_labels(const Handle(TDocStd_Document)& doc, const TopTools_IndexedMapOfShape& edges) {
+XdeEdgeLabels read_xde_labels(const Handle(TDocStd_Document) & doc, const TopTools_IndexedMapOfShape& edges) {
   XdeEdgeLabels out;
   out.name.resize(edges.Extent());
   out.instance.resize(edges.Extent());
@@ -99,7 +99,11 @@ XdeEdgeLabels read_xde_labels(const Handle(TDocStd_Document)& doc, const TopTool
   ByTShape placed;
   TDF_LabelSequence roots;
   tool->GetFreeShapes(roots);
-  for (int i = 1; i <= roots.Length(); ++i) walk(tool, roots.Value(i), TopLoc_Location(), "", placed);
+  for (int i = 1; i <= roots.Length(); ++i) {
+    const TDF_Label& root = roots.Value(i);
+    if (!XCAFDoc_ShapeTool::IsAssembly(root)) continue;
+    walk(tool, root, TopLoc_Location(), label_name(root).value_or("assembly_" + std::to_string(i)), placed);
+  }
 
   for (int i = 1; i <= edges.Extent(); ++i) {
     const TopoDS_Shape& e = edges(i);

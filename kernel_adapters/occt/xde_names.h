@@ -21,6 +21,6 @@ struct XdeEdgeLabels {
 };
 
 /// Names and instances of the edges in `edges` (world coordinates) found in `doc`.
-XdeEdgeLabels read_xde_labels(const Handle(TDocStd_Document)& doc, const TopTools_IndexedMapOfShape& edges);
+XdeEdgeLabels read_xde_labels(const Handle(TDocStd_Document) & doc, const TopTools_IndexedMapOfShape& edges);
 
 }  // namespace ergpath::occt

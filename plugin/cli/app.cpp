@@ -27,6 +27,8 @@ int run(int argc, char** argv, std::ostream& out, std::ostream& err) {
   add_work_command(app, commands);
   add_profile_command(app, commands);
   add_scalar_command(app, commands);
+  add_check_command(app, commands);
+  add_merge_command(app, commands);
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {

@@ -28,6 +28,8 @@ void add_list_command(CLI::App& app, std::vector<Command>& commands);
 void add_work_command(CLI::App& app, std::vector<Command>& commands);
 void add_profile_command(CLI::App& app, std::vector<Command>& commands);
 void add_scalar_command(CLI::App& app, std::vector<Command>& commands);
+void add_check_command(CLI::App& app, std::vector<Command>& commands);
+void add_merge_command(CLI::App& app, std::vector<Command>& commands);
 
 /// Parses argv, runs the chosen subcommand, prints errors. stdout receives output only on success
 /// (no partial output); stderr receives one line "ergpath: error: <message>" on failure.

@@ -58,14 +58,30 @@ std::vector<double> profile_stations(const ProfileArgs& a, double length_m) {
   return s;
 }
 
-std::vector<ProfilePoint> run_profile(const occt::StepModel& model, const ProfileArgs& a, std::ostream& out) {
-  const WorkArgs& w = a.work;
+namespace {
+
+FieldSpec checked_field_spec(const WorkArgs& w) {
   if (!(w.tolerance > 0.0 && w.tolerance < 1.0)) {
     throw Error(ErrorKind::BadOption, "--tolerance must be a relative tolerance in (0, 1)");
   }
-  const FieldSpec spec = make_field_spec(w.field);
+  FieldSpec spec = make_field_spec(w.field);
   FieldEvaluator check(spec);
+  return spec;
+}
+
+}  // namespace
+
+std::vector<ProfilePoint> run_profile(const occt::StepModel& model, const ProfileArgs& a, std::ostream& out) {
+  const WorkArgs& w = a.work;
+  checked_field_spec(w);
   const Path path = occt::build_path(model, occt::select_edges(model, w.path.selector), make_path_options(w.path));
+  return run_profile_on_path(model, path, a, out);
+}
+
+std::vector<ProfilePoint> run_profile_on_path(const occt::StepModel& model, const Path& path,
+                                              const ProfileArgs& a, std::ostream& out) {
+  const WorkArgs& w = a.work;
+  const FieldSpec spec = checked_field_spec(w);
   const ArcLength arc(path);
   const std::vector<double> stations = profile_stations(a, arc.total_m());
   IntegrationOptions iopts;

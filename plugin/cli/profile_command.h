@@ -27,4 +27,8 @@ std::vector<double> profile_stations(const ProfileArgs& args, double length_m);
 
 std::vector<ProfilePoint> run_profile(const occt::StepModel& model, const ProfileArgs& args, std::ostream& out);
 
+/// As run_profile, along a path the caller has already built from `model` (a DRAW wire in its own order).
+std::vector<ProfilePoint> run_profile_on_path(const occt::StepModel& model, const Path& path,
+                                              const ProfileArgs& args, std::ostream& out);
+
 }  // namespace ergpath::cli

@@ -26,18 +26,29 @@ std::string unit_name(double metres) {
   return report::format_number(metres) + " m";
 }
 
-}  // namespace
-
-WorkResult run_work(const occt::StepModel& model, const WorkArgs& a, std::ostream& out) {
+FieldSpec checked_field_spec(const WorkArgs& a) {
   if (!(a.tolerance > 0.0 && a.tolerance < 1.0)) {
     throw Error(ErrorKind::BadOption, "--tolerance must be a relative tolerance in (0, 1)");
   }
-  const FieldSpec spec = make_field_spec(a.field);
-  FieldEvaluator check(spec);  // formula errors surface before the model is read
+  FieldSpec spec = make_field_spec(a.field);
+  FieldEvaluator check(spec);  // formula errors surface before the path is built
+  return spec;
+}
+
+}  // namespace
+
+WorkResult run_work(const occt::StepModel& model, const WorkArgs& a, std::ostream& out) {
+  checked_field_spec(a);
   const occt::PathOptions popts = make_path_options(a.path);
   const std::vector<int> edges = occt::select_edges(model, a.path.selector);
-  const Path path = occt::build_path(model, edges, popts);
+  std::vector<std::string> notes;
+  const Path path = occt::build_path(model, edges, popts, &notes);
+  return run_work_on_path(model, path, a, out, notes);
+}
 
+WorkResult run_work_on_path(const occt::StepModel& model, const Path& path, const WorkArgs& a, std::ostream& out,
+                            const std::vector<std::string>& notes) {
+  const FieldSpec spec = checked_field_spec(a);
   IntegrationOptions iopts;
   iopts.rel_tol = a.tolerance;
   iopts.max_evaluations = a.max_evaluations;
@@ -58,6 +69,7 @@ WorkResult run_work(const occt::StepModel& model, const WorkArgs& a, std::ostrea
   ctx.model_unit_m = path.length_unit_m;
   ctx.field_length_unit = unit_name(spec.length_unit_m);
   ctx.rel_tol = a.tolerance;
+  ctx.notes = notes;
   if (a.curl_check) ctx.curl = estimate_curl(path, spec);
   if (a.format == "json") {
     out << report::work_json(r, ctx).dump(2) << "\n";

@@ -3,9 +3,11 @@
 
 #include <iosfwd>
 #include <string>
+#include <vector>
 
 #include "kernel_adapters/occt/step_model.h"
 #include "plugin/cli/field_options.h"
+#include "plugin/core/path.h"
 #include "plugin/core/work.h"
 
 namespace CLI {
@@ -32,5 +34,11 @@ void add_work_options(CLI::App& cmd, WorkArgs& args);
 /// Computes the work on an already loaded model and writes the text or JSON report to `out`.
 /// Throws Error for bad input, ToleranceNotMet (with the best value in the message) and NonFiniteField.
 WorkResult run_work(const occt::StepModel& model, const WorkArgs& args, std::ostream& out);
+
+/// As run_work, along a path the caller has already built from `model` (e.g. a wire of a DRAW session
+/// in its own order); args.path only labels the report. Same errors, except those of path building.
+/// `notes` (e.g. skipped degenerated edges, a changed order) are printed under the report.
+WorkResult run_work_on_path(const occt::StepModel& model, const Path& path, const WorkArgs& args,
+                            std::ostream& out, const std::vector<std::string>& notes = {});
 
 }  // namespace ergpath::cli

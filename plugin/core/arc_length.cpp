@@ -106,11 +106,16 @@ ArcLength::ArcLength(const Path& path, double rel_tol) : path_(path) {
       };
       std::vector<Job> stack{{knots[i], knots[i + 1], whole}};
       std::vector<Job> done;
+      // A span whose speed is noisy at the level of the budget (or a sliver beside a knot) would otherwise
+      // be bisected until every piece reaches double precision: cap the work per span and keep the
+      // estimates of the unfinished pieces in the error.
+      constexpr long kMaxSpanEvaluations = 200000;
+      const long span_start = evaluations_;
       while (!stack.empty()) {
         Job j = stack.back();
         stack.pop_back();
         const double mid = 0.5 * (j.a + j.b);
-        const bool splittable = mid > j.a && mid < j.b;
+        const bool splittable = mid > j.a && mid < j.b && evaluations_ - span_start < kMaxSpanEvaluations;
         if (j.e.err <= budget * (j.b - j.a) / width || !splittable) {
           done.push_back(j);
           continue;

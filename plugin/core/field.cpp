@@ -21,6 +21,15 @@ const std::set<std::string>& reserved_names() {
 
 struct Variables {
   double x = 0, y = 0, z = 0, s = 0, tx = 0, ty = 0, tz = 0;
+  void set(const FieldPoint& q) {
+    x = q.position.x;
+    y = q.position.y;
+    z = q.position.z;
+    s = q.s;
+    tx = q.tangent.x;
+    ty = q.tangent.y;
+    tz = q.tangent.z;
+  }
 };
 
 void bind(mu::Parser& p, Variables& v, const FieldSpec& spec) {
@@ -125,14 +134,7 @@ bool FieldEvaluator::uses_tangent() const { return impl_->uses_t; }
 bool FieldEvaluator::has_potential() const { return impl_->has_potential; }
 
 void FieldEvaluator::eval(const FieldPoint& q, Vec3* out) {
-  Variables& v = impl_->vars;
-  v.x = q.position.x;
-  v.y = q.position.y;
-  v.z = q.position.z;
-  v.s = q.s;
-  v.tx = q.tangent.x;
-  v.ty = q.tangent.y;
-  v.tz = q.tangent.z;
+  impl_->vars.set(q);
   for (std::size_t i = 0; i < impl_->forces.size(); ++i) {
     int n = 0;
     const double* r = impl_->forces[i].Eval(n);
@@ -174,14 +176,7 @@ ScalarFieldEvaluator& ScalarFieldEvaluator::operator=(ScalarFieldEvaluator&&) no
 bool ScalarFieldEvaluator::uses_arc_length() const { return impl_->uses_s; }
 
 double ScalarFieldEvaluator::eval(const FieldPoint& q) {
-  Variables& v = impl_->vars;
-  v.x = q.position.x;
-  v.y = q.position.y;
-  v.z = q.position.z;
-  v.s = q.s;
-  v.tx = q.tangent.x;
-  v.ty = q.tangent.y;
-  v.tz = q.tangent.z;
+  impl_->vars.set(q);
   return impl_->parser.Eval();
 }
 

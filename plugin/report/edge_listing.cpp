@@ -42,13 +42,15 @@ std::string counts(const std::map<std::string, int>& by_type) {
 
 }  // namespace
 
-void write_edge_listing_text(std::ostream& out, const std::vector<ListedEdge>& edges, const ListingSummary& s) {
+void write_edge_listing_text(std::ostream& out, const std::vector<ListedEdge>& edges,
+                             const ListingSummary& s) {
   out << "edges of " << s.file << " (schema " << s.schema << ", " << s.application_protocol << "; file unit "
       << s.file_unit << "; coordinates in mm, lengths in m)\n";
   for (const std::string& f : s.filters) out << "filter: " << f << "\n";
   char line[512];
   std::snprintf(line, sizeof line, "%6s  %-22s %-38s %-38s %16s  %-5s %-9s %-9s %-20s %s\n", "index", "type",
-                "start_mm (x, y, z)", "end_mm (x, y, z)", "length_m", "flags", "faces", "wires", "instance", "name");
+                "start_mm (x, y, z)", "end_mm (x, y, z)", "length_m", "flags", "faces", "wires", "instance",
+                "name");
   out << line;
   for (const ListedEdge& e : edges) {
     std::string flags;
@@ -64,11 +66,13 @@ void write_edge_listing_text(std::ostream& out, const std::vector<ListedEdge>& e
   }
   out << "flags: D degenerated (no 3-D curve), C closed, S seam\n";
   out << "summary: " << s.listed << " of " << s.edge_count << " edges listed (" << counts(s.by_type) << "); "
-      << s.degenerated << " degenerated; " << s.face_count << " faces, " << s.wire_count << " wires; file unit "
-      << s.file_unit << "; schema " << s.schema << " (" << s.application_protocol << ")\n";
+      << s.degenerated << " degenerated; " << s.face_count << " faces, " << s.wire_count
+      << " wires; file unit " << s.file_unit << "; schema " << s.schema << " (" << s.application_protocol
+      << ")\n";
 }
 
-void write_edge_listing_json(std::ostream& out, const std::vector<ListedEdge>& edges, const ListingSummary& s) {
+void write_edge_listing_json(std::ostream& out, const std::vector<ListedEdge>& edges,
+                             const ListingSummary& s) {
   using nlohmann::json;
   auto vec = [](const Vec3& p) { return json::array({p.x, p.y, p.z}); };
   auto opt = [](const auto& v) { return v ? json(*v) : json(nullptr); };

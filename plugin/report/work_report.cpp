@@ -108,6 +108,13 @@ void write_work_text(std::ostream& out, const WorkResult& r, const WorkContext& 
   out << "\n";
   out << (r.closed ? "Circulation (total work around the loop): " : "Total work: ") << format_number(r.work_J)
       << " J  (error estimate " << format_number(r.error_J, 2) << " J)\n";
+  if (!r.closed && r.work_J < 0.0) {
+    out << "The fields take " << format_number(-r.work_J, 6)
+        << " J from the moving part: a drive must supply at least that much (plus what the model leaves out).\n";
+  } else if (!r.closed && r.work_J > 0.0) {
+    out << "The fields give " << format_number(r.work_J, 6)
+        << " J to the moving part: a brake or damper must absorb it, or it becomes kinetic energy.\n";
+  }
   out << "Path length: " << format_number(r.length_m) << " m";
   if (r.window_from_m > 0.0 || r.window_to_m < r.length_m) {
     out << "; integrated from s = " << format_number(r.window_from_m) << " m to s = " << format_number(r.window_to_m)

@@ -15,16 +15,6 @@ extern char** environ;
 
 namespace ergpath::testing {
 
-namespace {
-std::string slurp_fd(int fd) {
-  std::string s;
-  char buf[65536];
-  ssize_t n;
-  while ((n = read(fd, buf, sizeof buf)) > 0) s.append(buf, static_cast<std::size_t>(n));
-  return s;
-}
-}  // namespace
-
 std::string make_temp_dir(const std::string& prefix) {
   std::string tmpl = (std::getenv("TMPDIR") ? std::string(std::getenv("TMPDIR")) : std::string("/tmp")) + "/" +
                      prefix + "XXXXXX";
