@@ -22,6 +22,9 @@ constexpr double kLocateSlack = 1e-12;
 // Newton on s(t) stops at this relative residual (w.r.t. the total length): well inside the promised 1e-12.
 constexpr double kNewtonResidual = 1e-15;
 constexpr int kNewtonMaxIterations = 100;
+// QUADPACK's qk15 constants (Piessens et al. 1983): err = resasc min(1, (200 |K - G| / resasc)^1.5).
+constexpr double kQuadpackScale = 200.0;
+constexpr double kQuadpackPower = 1.5;
 
 std::string edge_text(const Segment& seg, double t, const Vec3& p) {
   std::ostringstream os;
@@ -54,14 +57,24 @@ Estimate kronrod(const Segment& seg, double a, double b, long& count) {
   const auto& wg = G::weights();
   const double c = 0.5 * (a + b), h = 0.5 * (b - a);
   double k = 0.0, g = 0.0;
+  double left[8], right[8];
   for (std::size_t i = 0; i < xk.size(); ++i) {
-    const double f = i == 0 ? speed(seg, c, count)
-                            : speed(seg, c - h * xk[i], count) + speed(seg, c + h * xk[i], count);
+    left[i] = i == 0 ? speed(seg, c, count) : speed(seg, c - h * xk[i], count);
+    right[i] = i == 0 ? 0.0 : speed(seg, c + h * xk[i], count);
+    const double f = left[i] + right[i];
     k += wk[i] * f;
     // Boost lists Gauss-7 abscissae as every second Kronrod-15 abscissa, starting at the centre.
     if (i % 2 == 0) g += wg[i / 2] * f;
   }
-  return {h * k, std::max(h * std::abs(k - g), kRoundoff * h * k)};
+  // QUADPACK qk15 scaling of |K - G| (Piessens et al. 1983), as in span_quadrature.cpp.
+  double asc = wk[0] * std::abs(left[0] - 0.5 * k);
+  for (std::size_t i = 1; i < xk.size(); ++i) {
+    asc += wk[i] * (std::abs(left[i] - 0.5 * k) + std::abs(right[i] - 0.5 * k));
+  }
+  const double raw = h * std::abs(k - g), resasc = h * asc;
+  double err = raw;
+  if (resasc > 0.0 && raw > 0.0) err = resasc * std::min(1.0, std::pow(kQuadpackScale * raw / resasc, kQuadpackPower));
+  return {h * k, std::max(err, kRoundoff * h * k)};
 }
 
 }  // namespace

@@ -1,5 +1,6 @@
 #include "scalar_integral.h"
 
+#include <algorithm>
 #include <cmath>
 #include <sstream>
 
@@ -13,7 +14,7 @@ namespace ergpath {
 ScalarResult compute_scalar(const Path& path, const ScalarFieldSpec& density, const IntegrationOptions& options) {
   detail::check_options(options);
   ScalarFieldEvaluator f(density);
-  const ArcLength arc(path);
+  const ArcLength arc(path, std::min(ArcLength::kDefaultRelTol, options.rel_tol));
   const double total = arc.total_m();
   const double from = options.window_from_m.value_or(0.0), to = options.window_to_m.value_or(total);
   if (!(from >= 0.0 && to <= total * (1 + 1e-12) && from <= to)) {
@@ -44,22 +45,20 @@ ScalarResult compute_scalar(const Path& path, const ScalarFieldSpec& density, co
     const double ds = speed * path.length_unit_m;
     out[0] = value * ds;
     out[1] = std::abs(out[0]);
-    out[2] = ds;
     info.tangential = value;
     info.magnitude = std::abs(value);
   };
-  // Absolute floor for the length control, metres (see work.cpp: only a zero-length path needs it).
-  constexpr double kLengthFloor_m = 1e-15;
   detail::QuadratureOptions qo;
   qo.rel_tol = options.rel_tol;
   qo.max_evaluations = options.max_evaluations;
   qo.split_at_peaks = options.split_at_peaks;
-  const auto q = detail::integrate_spans(spans, 3, {{0, 1, options.abs_tol_J}, {2, 2, kLengthFloor_m}}, integrand, qo);
+  // The length comes from the arc-length table, not from this pass.
+  const auto q = detail::integrate_spans(spans, 2, {{0, 1, options.abs_tol_J}}, integrand, qo);
   ScalarResult r;
   r.value = q.value[0];
   r.error = q.error[0];
   r.abs_value = q.value[1];
-  r.length_m = q.value[2];
+  r.length_m = std::min(to, total) - from;
   r.evaluations = q.evaluations;
   r.status = q.converged ? Status::Converged : Status::ToleranceNotMet;
   r.segment_values.assign(path.segments.size(), 0.0);

@@ -2,9 +2,12 @@
 //
 // Method (docs/method.md): Gauss-Kronrod 7/15 on every span (Kronrod 1965; nodes from Boost.Math, computed
 // after Laurie 1997), then repeated bisection of the piece with the largest error relative to ONE global
-// budget shared by all spans (the QUADPACK QAG strategy, Piessens et al. 1983). Three refinements:
-//  - a span whose curve is polynomial first tries exactness: Kronrod-15 against Gauss-Legendre-12 (both of
-//    degree 23); agreement to round-off means the integrand is a low-degree polynomial there;
+// budget shared by all spans (the QUADPACK QAG strategy, Piessens et al. 1983). Error estimates: QUADPACK's
+// qk15 scaling of |K15 - G7|, sharpened after a bisection by the parent-versus-children difference
+// (Lyness 1969) where the rule is seen converging, floored at round-off. Three refinements:
+//  - a polynomial-curve span that misses its share first tries exactness: Kronrod-15 against
+//    Gauss-Legendre-12 (both of degree 23); agreement to round-off means the integrand is a polynomial of
+//    degree <= 23 there, to double precision;
 //  - a smooth periodic span (a whole circle or ellipse) uses the trapezoid rule, which converges
 //    geometrically for periodic analytic integrands (Trefethen & Weideman 2014);
 //  - a span with a sharp peak of the force magnitude (a source close to the curve) is split at the peak,

@@ -15,9 +15,6 @@ namespace detail {
 namespace {
 
 constexpr double kEps = std::numeric_limits<double>::epsilon();
-// Absolute floor for the length error, metres: far below any machined feature (a nanometre is 1e-9 m),
-// present only so that a zero-length path has a finite target.
-constexpr double kLengthFloor_m = 1e-15;
 // A potential or loop check fails when the discrepancy exceeds this multiple of the error budget: the
 // estimates are deliberately pessimistic, so a factor 10 flags real mismatches, not noise.
 constexpr double kCheckSafety = 10.0;
@@ -25,7 +22,9 @@ constexpr double kCheckSafety = 10.0;
 // double precision with a few dozen operations at most.
 constexpr double kPotentialRoundoff = 1000 * kEps;
 
-enum Component : std::size_t { kWork = 0, kAbsWork = 1, kLength = 2, kFirstField = 3 };
+// Lengths are not integrated here: they come from the arc-length table, which every WorkIntegrator
+// builds anyway (to ArcLength::kDefaultRelTol or the requested tolerance, whichever is tighter).
+enum Component : std::size_t { kWork = 0, kAbsWork = 1, kFirstField = 2 };
 
 }  // namespace
 
@@ -76,7 +75,8 @@ std::vector<Span> window_spans(const Path& path, const ArcLength& arc, double fr
 }
 
 WorkIntegrator::WorkIntegrator(const Path& path, const FieldSpec& spec, const IntegrationOptions& options)
-    : path_(path), spec_(spec), options_(options), field_(spec), arc_(path),
+    : path_(path), spec_(spec), options_(options), field_(spec),
+      arc_(path, std::min(ArcLength::kDefaultRelTol, options.rel_tol)),
       forces_(field_.count()), per_segment_(path.segments.size(), 0),
       to_field_(path.length_unit_m / spec.length_unit_m) {
   check_options(options);
@@ -114,7 +114,6 @@ void WorkIntegrator::sample(std::size_t k, double t, double* out, NodeInfo& info
   if (out) {
     out[kWork] = dot(total, dr);
     out[kAbsWork] = std::abs(out[kWork]);
-    out[kLength] = speed * path_.length_unit_m;
   }
   info.tangential = dot(total, q.tangent);
   info.magnitude = norm(total);
@@ -133,7 +132,7 @@ double WorkIntegrator::tangential_N(std::size_t k, double t, Vec3* position) {
 WorkResult WorkIntegrator::run(double from_m, double to_m, bool find_peaks) {
   const std::size_t nf = field_.count();
   const std::vector<Span> spans = window_spans(path_, arc_, from_m, to_m, !field_.uses_arc_length());
-  const std::vector<Control> controls{{kWork, kAbsWork, options_.abs_tol_J}, {kLength, kLength, kLengthFloor_m}};
+  const std::vector<Control> controls{{kWork, kAbsWork, options_.abs_tol_J}};
   QuadratureOptions qo;
   qo.rel_tol = options_.rel_tol;
   qo.max_evaluations = std::max(1L, options_.max_evaluations - evaluations_);
@@ -167,8 +166,6 @@ WorkResult WorkIntegrator::run(double from_m, double to_m, bool find_peaks) {
     s.work_J += p.value[kWork];
     s.error_J += p.error[kWork];
     s.abs_work_J += p.value[kAbsWork];
-    s.length_m += p.value[kLength];
-    r.length_error_m += p.error[kLength];
     for (std::size_t j = 0; j < nf; ++j) {
       s.fields[j].work_J += p.value[kFirstField + j];
       r.fields[j].work_J += p.value[kFirstField + j];
@@ -203,6 +200,8 @@ WorkResult WorkIntegrator::run(double from_m, double to_m, bool find_peaks) {
   }
   for (std::size_t k = 0; k < path_.segments.size(); ++k) {
     SegmentWork& s = r.segments[k];
+    const double start = arc_.segment_start_m(k), end = start + arc_.segment_length_m(k);
+    s.length_m = std::max(0.0, std::min(to_m, end) - std::max(from_m, start));
     s.evaluations = per_segment_[k] - before_seg[k];
     r.work_J += s.work_J;
     r.error_J += s.error_J;
@@ -210,6 +209,7 @@ WorkResult WorkIntegrator::run(double from_m, double to_m, bool find_peaks) {
     r.length_m += s.length_m;
   }
   r.evaluations = evaluations_ - before;
+  r.length_error_m = arc_.error_m();  // of the whole table: a bound for any window
 
   const double target = std::max(options_.rel_tol * r.abs_work_J, options_.abs_tol_J);
   if (field_.has_potential() && !path_.segments.empty()) {
