@@ -12,14 +12,16 @@ namespace ergpath::cli {
 
 const std::string& caution_line() {
   static const std::string text =
-      "CAUTION: computed values only. Springs, drives and brakes sized from them can injure people: verify by "
+      "CAUTION: computed values only. Springs, drives and brakes sized from them can injure people: verify "
+      "by "
       "test, mind stored spring energy and pinch points, follow lifting-equipment rules and local codes, and "
       "have the design reviewed by a licensed engineer.";
   return text;
 }
 
 int run(int argc, char** argv, std::ostream& out, std::ostream& err) {
-  CLI::App app{"ergpath: work, circulation and arc length along exact CAD paths (STEP) in formula force fields"};
+  CLI::App app{
+      "ergpath: work, circulation and arc length along exact CAD paths (STEP) in formula force fields"};
   app.require_subcommand(1);
   app.set_version_flag("--version", "ergpath 0.1.0");
   std::vector<Command> commands;

@@ -58,7 +58,8 @@ int run_check(const CheckArgs& a, std::ostream& out) {
 }
 
 void add_check_options(CLI::App& cmd, CheckArgs& a) {
-  cmd.add_option("--jobs", a.jobs, "Cases run at once (default: one per hardware thread)")->check(CLI::PositiveNumber);
+  cmd.add_option("--jobs", a.jobs, "Cases run at once (default: one per hardware thread)")
+      ->check(CLI::PositiveNumber);
   cmd.add_option("--results", a.results,
                  "JSON Lines log, one case per line as it finishes; the summary goes to FILE.summary.json");
   cmd.add_flag("--resume", a.resume, "Skip cases whose inputs digest is already in the --results log");

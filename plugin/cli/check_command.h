@@ -11,11 +11,11 @@ class App;
 namespace ergpath::cli {
 
 struct CheckArgs {
-  std::string manifest;  // TOML manifest; model paths in it are relative to its folder
-  int jobs = 0;          // cases run at once; 0: one per hardware thread
-  std::string results;   // JSON Lines log; empty: none
-  bool resume = false;   // skip cases already in the results log
-  std::string shard;     // "K/N"; empty: every case
+  std::string manifest;         // TOML manifest; model paths in it are relative to its folder
+  int jobs = 0;                 // cases run at once; 0: one per hardware thread
+  std::string results;          // JSON Lines log; empty: none
+  bool resume = false;          // skip cases already in the results log
+  std::string shard;            // "K/N"; empty: every case
   std::string format = "text";  // text or json
 };
 

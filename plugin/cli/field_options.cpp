@@ -13,12 +13,16 @@
 namespace ergpath::cli {
 
 void add_field_options(CLI::App& cmd, FieldOptions& o) {
-  cmd.add_option("--field", o.fields,
-                 "Force field \"FX, FY, FZ\" in newtons, or NAME=\"FX, FY, FZ\"; repeat for several named fields");
+  cmd.add_option(
+      "--field", o.fields,
+      "Force field \"FX, FY, FZ\" in newtons, or NAME=\"FX, FY, FZ\"; repeat for several named fields");
   cmd.add_option("--const", o.constants, "Constant NAME=VALUE seen by the formulas; repeatable");
-  cmd.add_option("--field-file", o.field_file, "TOML file with length_unit, [constants], [forces], potential");
-  cmd.add_option("--field-length-unit", o.length_unit, "Unit of x, y, z, s in the formulas: m (default), mm, cm, in, ft");
-  cmd.add_option("--potential", o.potential, "U(x, y, z) in joules of the total force, for a potential check");
+  cmd.add_option("--field-file", o.field_file,
+                 "TOML file with length_unit, [constants], [forces], potential");
+  cmd.add_option("--field-length-unit", o.length_unit,
+                 "Unit of x, y, z, s in the formulas: m (default), mm, cm, in, ft");
+  cmd.add_option("--potential", o.potential,
+                 "U(x, y, z) in joules of the total force, for a potential check");
 }
 
 double parse_number(const std::string& text, const std::string& what, ErrorKind kind) {

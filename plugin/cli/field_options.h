@@ -28,7 +28,7 @@ struct PathCliOptions {
   std::string model;
   std::string selector = "all";
   bool reverse = false;
-  std::string start;                   // "X,Y,Z" in mm
+  std::string start;  // "X,Y,Z" in mm
   double gap_tolerance_mm = 1e-3;
 };
 

@@ -106,7 +106,8 @@ void add_list_options(CLI::App& cmd, ListArgs& a) {
   cmd.add_option("--name", a.name, "Only edges whose name matches this pattern ('*' and '?' wildcards)");
   cmd.add_option("--min-length", a.min_length_m, "Only edges at least this long, m");
   cmd.add_option("--max-length", a.max_length_m, "Only edges at most this long, m");
-  cmd.add_option("--near", a.near, "X,Y,Z in mm: the edge nearest this point (with --within: all edges that close)");
+  cmd.add_option("--near", a.near,
+                 "X,Y,Z in mm: the edge nearest this point (with --within: all edges that close)");
   cmd.add_option("--within", a.within_mm, "With --near: every edge within this distance, mm");
 }
 

@@ -14,13 +14,13 @@ class App;
 namespace ergpath::cli {
 
 struct ListArgs {
-  std::string model;                // STEP file (the CLI's positional; DRAW names a shape instead)
-  std::string format = "text";      // text or json
-  std::string types;                // comma-separated type names
-  std::string name;                 // glob ('*', '?')
+  std::string model;            // STEP file (the CLI's positional; DRAW names a shape instead)
+  std::string format = "text";  // text or json
+  std::string types;            // comma-separated type names
+  std::string name;             // glob ('*', '?')
   std::optional<double> min_length_m, max_length_m;  // metres
-  std::optional<double> within_mm;  // millimetres, with `near`
-  std::string near;                 // "X,Y,Z" in millimetres
+  std::optional<double> within_mm;                   // millimetres, with `near`
+  std::string near;                                  // "X,Y,Z" in millimetres
 };
 
 /// Registers --format, --type, --name, --min-length, --max-length, --near and --within on `cmd`

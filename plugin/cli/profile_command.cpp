@@ -37,8 +37,8 @@ std::vector<double> profile_stations(const ProfileArgs& a, double length_m) {
     for (const std::string& t : a.at) {
       double v = parse_length_m(t, "--at");
       if (v < 0.0 || v > length_m * (1 + kEndSlack)) {
-        throw Error(ErrorKind::BadOption, "--at " + t + " lies outside the path [0, " +
-                                              report::format_number(length_m) + "] m");
+        throw Error(ErrorKind::BadOption,
+                    "--at " + t + " lies outside the path [0, " + report::format_number(length_m) + "] m");
       }
       s.push_back(std::min(v, length_m));
     }
@@ -46,7 +46,8 @@ std::vector<double> profile_stations(const ProfileArgs& a, double length_m) {
     const double d = parse_length_m(a.spacing, "--spacing");
     if (!(d > 0.0)) throw Error(ErrorKind::BadOption, "--spacing must be positive");
     constexpr double kMaxStations = 1e6;
-    if (length_m / d > kMaxStations) throw Error(ErrorKind::BadOption, "--spacing gives more than 1e6 stations");
+    if (length_m / d > kMaxStations)
+      throw Error(ErrorKind::BadOption, "--spacing gives more than 1e6 stations");
     for (long i = 0; i * d < length_m * (1 - kEndSlack); ++i) s.push_back(i * d);
     s.push_back(length_m);
   } else {
@@ -74,7 +75,8 @@ FieldSpec checked_field_spec(const WorkArgs& w) {
 std::vector<ProfilePoint> run_profile(const occt::StepModel& model, const ProfileArgs& a, std::ostream& out) {
   const WorkArgs& w = a.work;
   checked_field_spec(w);
-  const Path path = occt::build_path(model, occt::select_edges(model, w.path.selector), make_path_options(w.path));
+  const Path path =
+      occt::build_path(model, occt::select_edges(model, w.path.selector), make_path_options(w.path));
   return run_profile_on_path(model, path, a, out);
 }
 
@@ -108,7 +110,8 @@ std::vector<ProfilePoint> run_profile_on_path(const occt::StepModel& model, cons
 
 void add_profile_command(CLI::App& app, std::vector<Command>& commands) {
   auto args = std::make_shared<ProfileArgs>();
-  CLI::App* cmd = app.add_subcommand("profile", "Cumulative work W(s) and tangential force at stations along a path");
+  CLI::App* cmd =
+      app.add_subcommand("profile", "Cumulative work W(s) and tangential force at stations along a path");
   cmd->add_option("MODEL", args->work.path.model, "STEP file (AP203/AP214/AP242)")->required();
   add_profile_options(*cmd, *args);
   commands.push_back({cmd, [args](std::ostream& out) {

@@ -56,18 +56,26 @@ ScalarResult run_scalar_on_path(const occt::StepModel&, const Path& path, const 
   if (!a.to.empty()) o.window_to_m = parse_length_m(a.to, "--to");
   const ScalarResult r = compute_scalar(path, spec, o);
   if (r.status != Status::Converged) {
-    throw Error(ErrorKind::ToleranceNotMet, "tolerance not met: best integral " + report::format_number(r.value) +
-                                                ", error estimate " + report::format_number(r.error, 3));
+    throw Error(ErrorKind::ToleranceNotMet, "tolerance not met: best integral " +
+                                                report::format_number(r.value) + ", error estimate " +
+                                                report::format_number(r.error, 3));
   }
   const double from = o.window_from_m.value_or(0.0);
   const double to = o.window_to_m.value_or(r.length_m);
   const double span = to - from;
   const double mean = span > 0.0 ? r.value / span : 0.0;
   if (a.format == "json") {
-    nlohmann::json j{{"model", a.path.model},        {"path", a.path.selector}, {"integrand", a.integrand},
-                     {"integral", r.value},          {"error_estimate", r.error}, {"abs_integral", r.abs_value},
-                     {"mean", mean},                 {"length_m", r.length_m},  {"window_m", {from, to}},
-                     {"evaluations", r.evaluations}, {"segments", r.segment_values}};
+    nlohmann::json j{{"model", a.path.model},
+                     {"path", a.path.selector},
+                     {"integrand", a.integrand},
+                     {"integral", r.value},
+                     {"error_estimate", r.error},
+                     {"abs_integral", r.abs_value},
+                     {"mean", mean},
+                     {"length_m", r.length_m},
+                     {"window_m", {from, to}},
+                     {"evaluations", r.evaluations},
+                     {"segments", r.segment_values}};
     out << j.dump(2) << "\n";
   } else {
     out << "Integral of f ds along " << a.path.selector << " of " << a.path.model << "\n";
@@ -98,7 +106,8 @@ void add_scalar_options(CLI::App& cmd, ScalarArgs& a) {
 
 void add_scalar_command(CLI::App& app, std::vector<Command>& commands) {
   auto a = std::make_shared<ScalarArgs>();
-  CLI::App* cmd = app.add_subcommand("scalar", "Scalar line integral of f ds along a path, and the mean of f");
+  CLI::App* cmd =
+      app.add_subcommand("scalar", "Scalar line integral of f ds along a path, and the mean of f");
   cmd->add_option("MODEL", a->path.model, "STEP file (AP203/AP214/AP242)")->required();
   add_scalar_options(*cmd, *a);
   commands.push_back({cmd, [a](std::ostream& out) {

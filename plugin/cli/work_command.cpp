@@ -46,8 +46,8 @@ WorkResult run_work(const occt::StepModel& model, const WorkArgs& a, std::ostrea
   return run_work_on_path(model, path, a, out, notes);
 }
 
-WorkResult run_work_on_path(const occt::StepModel& model, const Path& path, const WorkArgs& a, std::ostream& out,
-                            const std::vector<std::string>& notes) {
+WorkResult run_work_on_path(const occt::StepModel& model, const Path& path, const WorkArgs& a,
+                            std::ostream& out, const std::vector<std::string>& notes) {
   const FieldSpec spec = checked_field_spec(a);
   IntegrationOptions iopts;
   iopts.rel_tol = a.tolerance;
@@ -57,11 +57,11 @@ WorkResult run_work_on_path(const occt::StepModel& model, const Path& path, cons
   iopts.assume_conservative = a.conservative;
   const WorkResult r = compute_work(path, spec, iopts);
   if (r.status == Status::ToleranceNotMet) {
-    throw Error(ErrorKind::ToleranceNotMet,
-                "tolerance " + report::format_number(a.tolerance, 3) + " not met on " + a.path.model + " path " +
-                    a.path.selector + ": best work " + report::format_number(r.work_J) + " J, error estimate " +
-                    report::format_number(r.error_J, 3) + " J after " + std::to_string(r.evaluations) +
-                    " evaluations");
+    throw Error(ErrorKind::ToleranceNotMet, "tolerance " + report::format_number(a.tolerance, 3) +
+                                                " not met on " + a.path.model + " path " + a.path.selector +
+                                                ": best work " + report::format_number(r.work_J) +
+                                                " J, error estimate " + report::format_number(r.error_J, 3) +
+                                                " J after " + std::to_string(r.evaluations) + " evaluations");
   }
   report::WorkContext ctx;
   ctx.model = model.file();
@@ -80,18 +80,22 @@ WorkResult run_work_on_path(const occt::StepModel& model, const Path& path, cons
 }
 
 void add_work_options(CLI::App& cmd, WorkArgs& args) {
-  cmd.add_option("--path", args.path.selector, "Edges to travel: all, edge:I, edges:I,J,K (see docs/selectors.md)");
+  cmd.add_option("--path", args.path.selector,
+                 "Edges to travel: all, edge:I, edges:I,J,K (see docs/selectors.md)");
   cmd.add_flag("--reverse", args.path.reverse, "Travel the whole path the other way");
-  cmd.add_option("--start", args.path.start, "X,Y,Z in mm: start an open chain at its end nearest this point");
+  cmd.add_option("--start", args.path.start,
+                 "X,Y,Z in mm: start an open chain at its end nearest this point");
   cmd.add_option("--gap-tolerance", args.path.gap_tolerance_mm,
                  "Largest gap between consecutive edges, mm (default 0.001)");
   add_field_options(cmd, args.field);
   cmd.add_option("--tolerance", args.tolerance, "Relative error target on the work (default 1e-10)");
   cmd.add_option("--from", args.from, "Integrate from this arc length (metres, or with a unit: 250mm)");
   cmd.add_option("--to", args.to, "Integrate up to this arc length (metres, or with a unit)");
-  cmd.add_flag("--conservative", args.conservative,
-               "State that the total field is conservative: a closed loop's circulation beyond tolerance is flagged");
-  cmd.add_flag("--curl-check", args.curl_check, "Sample curl F along the path: can path independence be expected?");
+  cmd.add_flag(
+      "--conservative", args.conservative,
+      "State that the total field is conservative: a closed loop's circulation beyond tolerance is flagged");
+  cmd.add_flag("--curl-check", args.curl_check,
+               "Sample curl F along the path: can path independence be expected?");
   cmd.add_option("--max-evaluations", args.max_evaluations,
                  "Budget of field evaluations before giving up with exit code 3 (default 20000000)")
       ->check(CLI::PositiveNumber);
@@ -100,7 +104,8 @@ void add_work_options(CLI::App& cmd, WorkArgs& args) {
 
 void add_work_command(CLI::App& app, std::vector<Command>& commands) {
   auto args = std::make_shared<WorkArgs>();
-  CLI::App* cmd = app.add_subcommand("work", "Work of force fields along a path of edges (circulation if closed)");
+  CLI::App* cmd =
+      app.add_subcommand("work", "Work of force fields along a path of edges (circulation if closed)");
   cmd->add_option("MODEL", args->path.model, "STEP file (AP203/AP214/AP242)")->required();
   add_work_options(*cmd, *args);
   commands.push_back({cmd, [args](std::ostream& out) {

@@ -21,9 +21,9 @@ struct WorkArgs {
   FieldOptions field;
   double tolerance = 1e-10;
   long max_evaluations = 20000000;
-  std::string from, to;       // distance window, metres or with a unit suffix; empty: path start / end
-  bool conservative = false;  // the user states the total field is conservative (closed loops are checked)
-  bool curl_check = false;    // sample curl F along the path and report it
+  std::string from, to;         // distance window, metres or with a unit suffix; empty: path start / end
+  bool conservative = false;    // the user states the total field is conservative (closed loops are checked)
+  bool curl_check = false;      // sample curl F along the path and report it
   std::string format = "text";  // text or json
 };
 

@@ -72,8 +72,8 @@ NurbsCurve::NurbsCurve(int degree, std::vector<double> knots, std::vector<Vec3> 
                        std::vector<double> weights)
     : p_(degree), knots_(std::move(knots)), poles_(std::move(poles)), weights_(std::move(weights)) {
   const std::size_t n = poles_.size();
-  if (p_ < 1 || n < static_cast<std::size_t>(p_) + 1 || knots_.size() != n + p_ + 1 ||
-      weights_.size() != n || !std::is_sorted(knots_.begin(), knots_.end()) ||
+  if (p_ < 1 || n < static_cast<std::size_t>(p_) + 1 || knots_.size() != n + p_ + 1 || weights_.size() != n ||
+      !std::is_sorted(knots_.begin(), knots_.end()) ||
       std::any_of(weights_.begin(), weights_.end(), [](double w) { return !(w > 0.0); })) {
     throw Error(ErrorKind::BadOption, "NURBS curve: inconsistent degree, knots, poles or weights");
   }
@@ -87,7 +87,9 @@ void NurbsCurve::d1(double t, Vec3& p, Vec3& v) const {
   // Knot span (Piegl & Tiller A2.1), the last span closed on the right.
   int span = n;
   if (t < knots_[n + 1]) {
-    span = static_cast<int>(std::upper_bound(knots_.begin() + p_, knots_.begin() + n + 1, t) - knots_.begin()) - 1;
+    span =
+        static_cast<int>(std::upper_bound(knots_.begin() + p_, knots_.begin() + n + 1, t) - knots_.begin()) -
+        1;
   }
   // Basis functions and first derivatives (Piegl & Tiller A2.3 with n = 1).
   std::vector<std::vector<double>> ndu(p_ + 1, std::vector<double>(p_ + 1, 0.0));

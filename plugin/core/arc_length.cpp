@@ -73,7 +73,8 @@ Estimate kronrod(const Segment& seg, double a, double b, long& count) {
   }
   const double raw = h * std::abs(k - g), resasc = h * asc;
   double err = raw;
-  if (resasc > 0.0 && raw > 0.0) err = resasc * std::min(1.0, std::pow(kQuadpackScale * raw / resasc, kQuadpackPower));
+  if (resasc > 0.0 && raw > 0.0)
+    err = resasc * std::min(1.0, std::pow(kQuadpackScale * raw / resasc, kQuadpackPower));
   return {h * k, std::max(err, kRoundoff * h * k)};
 }
 
@@ -157,8 +158,9 @@ double ArcLength::along_parameter(const SegmentTable& table, std::size_t k, doub
   const Segment& seg = path_.segments[k];
   double sum = 0.0;
   for (std::size_t n = 0; n < x.size(); ++n) {
-    sum += w[n] * (x[n] == 0.0 ? speed(seg, c, evaluations_)
-                               : speed(seg, c - h * x[n], evaluations_) + speed(seg, c + h * x[n], evaluations_));
+    sum += w[n] * (x[n] == 0.0
+                       ? speed(seg, c, evaluations_)
+                       : speed(seg, c - h * x[n], evaluations_) + speed(seg, c + h * x[n], evaluations_));
   }
   return table.cum[i] + h * sum;
 }
@@ -189,7 +191,10 @@ double ArcLength::t_at(std::size_t k, double s_m) const {
   for (int iter = 0; iter < kNewtonMaxIterations; ++iter) {
     const double g = along_parameter(table, k, t) - target;
     if (std::abs(g) <= stop) break;
-    if (g < 0.0) lo = t; else hi = t;
+    if (g < 0.0)
+      lo = t;
+    else
+      hi = t;
     const double sp = speed(seg, t, evaluations_);
     double next = sp > 0.0 ? t - g / sp : lo - 1.0;
     if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);  // bisection fallback

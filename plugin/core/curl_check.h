@@ -20,7 +20,7 @@ struct CurlEstimate {
   double force_scale_N = 0.0;     // largest |F| seen, newtons
   /// max |curl F| x L / max |F| (dimensionless). Below ~1e-6: no evidence of curl at this sampling.
   double relative = 0.0;
-  Vec3 position;    // where the largest curl was seen, model length unit
+  Vec3 position;     // where the largest curl was seen, model length unit
   double s_m = 0.0;  // its arc length from the path start, metres
 };
 

@@ -15,7 +15,8 @@ LengthEstimate curve_length(const Curve& curve, double a, double b, double rel_t
   // segment borrows `curve` (aliasing shared_ptr with no owner); the table does not outlive this call.
   Path path;
   path.length_unit_m = 1.0;
-  path.segments.push_back({std::shared_ptr<const Curve>(std::shared_ptr<const Curve>(), &curve), false, 0, ""});
+  path.segments.push_back(
+      {std::shared_ptr<const Curve>(std::shared_ptr<const Curve>(), &curve), false, 0, ""});
   const ArcLength arc(path, rel_tol);
   out.length = arc.s_at(0, b) - arc.s_at(0, a);
   out.error = arc.error_m();

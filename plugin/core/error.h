@@ -23,10 +23,10 @@ enum class ErrorKind {
   BadOption,            // an option value out of its domain (tolerance, unit, window, ...)
   BadManifest,          // a batch manifest or field file is unreadable or wrong (message names the line)
   // Numerical failure: exit code 3.
-  NonFiniteField,       // the field or the curve derivative is NaN/Inf somewhere on the path
-  ToleranceNotMet,      // the error budget could not be met; the best value is still reported
+  NonFiniteField,   // the field or the curve derivative is NaN/Inf somewhere on the path
+  ToleranceNotMet,  // the error budget could not be met; the best value is still reported
   // Environment: exit code 4.
-  OutputFailed,         // an output file could not be written
+  OutputFailed,  // an output file could not be written
 };
 
 /// Stable lower-case identifier of a kind, e.g. "gap_too_large" (used in JSON and batch results).

@@ -24,9 +24,9 @@ struct NamedField {
 };
 
 struct FieldSpec {
-  std::vector<NamedField> forces;                           // at least one
-  std::vector<std::pair<std::string, double>> constants;    // user constants, in the units the formulas expect
-  double length_unit_m = 1.0;                               // metres per length unit seen by the formulas
+  std::vector<NamedField> forces;                         // at least one
+  std::vector<std::pair<std::string, double>> constants;  // user constants, in the units the formulas expect
+  double length_unit_m = 1.0;                             // metres per length unit seen by the formulas
   /// Optional scalar potential U(x, y, z) in joules for a conservative total force (F = -grad U);
   /// empty when none is given.
   std::string potential;
@@ -49,13 +49,13 @@ class FieldEvaluator {
   FieldEvaluator(FieldEvaluator&&) noexcept;
   FieldEvaluator& operator=(FieldEvaluator&&) noexcept;
 
-  std::size_t count() const;                 // number of named force fields
+  std::size_t count() const;  // number of named force fields
   const std::string& name(std::size_t i) const;
   /// Force of every named field at q, newtons; `out` has count() entries. Values may be non-finite:
   /// the caller decides what that means.
   void eval(const FieldPoint& q, Vec3* out);
-  bool uses_arc_length() const;              // some formula reads s
-  bool uses_tangent() const;                 // some formula reads tx, ty or tz
+  bool uses_arc_length() const;  // some formula reads s
+  bool uses_tangent() const;     // some formula reads tx, ty or tz
   bool has_potential() const;
   /// U at a position (field length unit), joules. Precondition: has_potential().
   double potential(const Vec3& position);
@@ -75,7 +75,8 @@ struct ScalarFieldSpec {
 /// Compiled scalar formula. Not thread-safe: one per thread.
 class ScalarFieldEvaluator {
  public:
-  /// Throws Error: BadFormula (with the 1-based position), WrongComponentCount (not exactly one), BadConstant.
+  /// Throws Error: BadFormula (with the 1-based position), WrongComponentCount (not exactly one),
+  /// BadConstant.
   explicit ScalarFieldEvaluator(const ScalarFieldSpec& spec);
   ~ScalarFieldEvaluator();
   ScalarFieldEvaluator(ScalarFieldEvaluator&&) noexcept;

@@ -32,7 +32,6 @@ std::string text(const toml::node& node, const std::string& origin, const std::s
   fail(at(origin, node), "'" + key + "' must be a string");
 }
 
-
 }  // namespace
 
 void apply_field_table(const toml::table& table, const std::string& origin, FieldSpec& spec,
@@ -56,8 +55,10 @@ void apply_field_table(const toml::table& table, const std::string& origin, Fiel
         const double value = number(cv, origin, name);
         auto it = std::find_if(spec.constants.begin(), spec.constants.end(),
                                [&](const auto& c) { return c.first == name; });
-        if (it != spec.constants.end()) it->second = value;
-        else spec.constants.emplace_back(name, value);
+        if (it != spec.constants.end())
+          it->second = value;
+        else
+          spec.constants.emplace_back(name, value);
       }
     } else if (key == "forces") {
       const toml::table* t = node.as_table();
@@ -67,12 +68,14 @@ void apply_field_table(const toml::table& table, const std::string& origin, Fiel
         const std::string formula = text(fv, origin, name);
         auto it = std::find_if(spec.forces.begin(), spec.forces.end(),
                                [&](const NamedField& f) { return f.name == name; });
-        if (it != spec.forces.end()) it->formula = formula;
-        else spec.forces.push_back({name, formula});
+        if (it != spec.forces.end())
+          it->formula = formula;
+        else
+          spec.forces.push_back({name, formula});
       }
     } else {
-      fail(at(origin, node), "unknown key '" + key +
-                                 "' (expected length_unit, potential, [constants] or [forces])");
+      fail(at(origin, node),
+           "unknown key '" + key + "' (expected length_unit, potential, [constants] or [forces])");
     }
   }
 }

@@ -6,15 +6,24 @@ namespace ergpath {
 
 const char* to_string(CurveType type) {
   switch (type) {
-    case CurveType::Line: return "line";
-    case CurveType::Circle: return "circle";
-    case CurveType::Ellipse: return "ellipse";
-    case CurveType::Hyperbola: return "hyperbola";
-    case CurveType::Parabola: return "parabola";
-    case CurveType::Bezier: return "bezier";
-    case CurveType::BSpline: return "bspline";
-    case CurveType::Offset: return "offset";
-    case CurveType::Other: return "other";
+    case CurveType::Line:
+      return "line";
+    case CurveType::Circle:
+      return "circle";
+    case CurveType::Ellipse:
+      return "ellipse";
+    case CurveType::Hyperbola:
+      return "hyperbola";
+    case CurveType::Parabola:
+      return "parabola";
+    case CurveType::Bezier:
+      return "bezier";
+    case CurveType::BSpline:
+      return "bspline";
+    case CurveType::Offset:
+      return "offset";
+    case CurveType::Other:
+      return "other";
   }
   return "other";
 }

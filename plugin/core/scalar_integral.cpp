@@ -11,7 +11,8 @@
 
 namespace ergpath {
 
-ScalarResult compute_scalar(const Path& path, const ScalarFieldSpec& density, const IntegrationOptions& options) {
+ScalarResult compute_scalar(const Path& path, const ScalarFieldSpec& density,
+                            const IntegrationOptions& options) {
   detail::check_options(options);
   ScalarFieldEvaluator f(density);
   const ArcLength arc(path, std::min(ArcLength::kDefaultRelTol, options.rel_tol));
@@ -32,7 +33,8 @@ ScalarResult compute_scalar(const Path& path, const ScalarFieldSpec& density, co
     seg.curve->d1(t, p, v);
     const double speed = norm(v);
     if (!is_finite(p) || !std::isfinite(speed)) {
-      throw Error(ErrorKind::NonFiniteField, "curve derivative is not finite on " + detail::describe_point(seg, t, p));
+      throw Error(ErrorKind::NonFiniteField,
+                  "curve derivative is not finite on " + detail::describe_point(seg, t, p));
     }
     FieldPoint q;
     q.position = to_field * p;

@@ -26,6 +26,7 @@ struct ScalarResult {
 /// Uses rel_tol, abs_tol_J (as the absolute floor, in the unit of the result), max_evaluations and the
 /// window of `options`. Throws Error(NonFiniteField) naming edge, t and position; formula errors from
 /// ScalarFieldEvaluator; Error(BadOption) for bad tolerances or window.
-ScalarResult compute_scalar(const Path& path, const ScalarFieldSpec& density, const IntegrationOptions& options = {});
+ScalarResult compute_scalar(const Path& path, const ScalarFieldSpec& density,
+                            const IntegrationOptions& options = {});
 
 }  // namespace ergpath

@@ -101,7 +101,7 @@ struct Cell {
   double best_t = 0.0, best_lo = 0.0, best_hi = 0.0, best_tangential = 0.0;
   double mag_t = 0.0, mag_lo = 0.0, mag_hi = 0.0, mag = -1.0;
   std::vector<double> absk;  // Kronrod integral of |f|: the round-off scale
-  std::vector<double> raw;  // |K - G| per component: the unscaled Gauss error, for the two-level test
+  std::vector<double> raw;   // |K - G| per component: the unscaled Gauss error, for the two-level test
   bool refinable = true;
   bool alive = true;
   bool exactness_pending = false;  // polynomial span whose Gauss-12 exactness test has not run yet
@@ -221,7 +221,8 @@ void Driver::kronrod(Cell& c) {
     const double raw = std::abs(h * (k[j] - g[j]));
     const double resasc = std::abs(h) * asc[j];
     double err = raw;
-    if (resasc > 0.0 && raw > 0.0) err = resasc * std::min(1.0, std::pow(kQuadpackScale * raw / resasc, kQuadpackPower));
+    if (resasc > 0.0 && raw > 0.0)
+      err = resasc * std::min(1.0, std::pow(kQuadpackScale * raw / resasc, kQuadpackPower));
     c.raw[j] = raw;
     c.error[j] = std::max(err, kRoundoff * c.absk[j]);
   }
@@ -453,7 +454,8 @@ QuadratureResult Driver::run() {
     const Span& s = spans_[parent.span];
     const double tm = parent.map.t(vm);
     if (!(vm > parent.va && vm < parent.vb) || !(tm > s.a && tm < s.b) ||
-        std::abs(parent.map.t(parent.vb) - parent.map.t(parent.va)) <= 8 * kEps * std::max(std::abs(s.a), std::abs(s.b))) {
+        std::abs(parent.map.t(parent.vb) - parent.map.t(parent.va)) <=
+            8 * kEps * std::max(std::abs(s.a), std::abs(s.b))) {
       converged = false;  // the worst piece cannot be split further in double precision
       break;
     }
@@ -498,9 +500,8 @@ QuadratureResult Driver::run() {
     }
     r.pieces.push_back(std::move(p));
   }
-  std::sort(r.pieces.begin(), r.pieces.end(), [](const Piece& x, const Piece& y) {
-    return x.span != y.span ? x.span < y.span : x.a < y.a;
-  });
+  std::sort(r.pieces.begin(), r.pieces.end(),
+            [](const Piece& x, const Piece& y) { return x.span != y.span ? x.span < y.span : x.a < y.a; });
   r.evaluations = evaluations_;
   r.converged = converged;
   return r;

@@ -75,9 +75,13 @@ std::vector<Span> window_spans(const Path& path, const ArcLength& arc, double fr
 }
 
 WorkIntegrator::WorkIntegrator(const Path& path, const FieldSpec& spec, const IntegrationOptions& options)
-    : path_(path), spec_(spec), options_(options), field_(spec),
+    : path_(path),
+      spec_(spec),
+      options_(options),
+      field_(spec),
       arc_(path, std::min(ArcLength::kDefaultRelTol, options.rel_tol)),
-      forces_(field_.count()), per_segment_(path.segments.size(), 0),
+      forces_(field_.count()),
+      per_segment_(path.segments.size(), 0),
       to_field_(path.length_unit_m / spec.length_unit_m) {
   check_options(options);
   if (!(path.length_unit_m > 0.0) || !std::isfinite(path.length_unit_m)) {

@@ -38,11 +38,11 @@ struct IntegrationOptions {
 
 /// Largest magnitude of the tangential force F . T along a stretch, and where it occurs.
 struct Peak {
-  double force_N = 0.0;      // signed F . T at the peak (T = unit tangent in travel direction)
-  double s_m = 0.0;          // arc length from the path start
-  Vec3 position;             // model length unit
+  double force_N = 0.0;  // signed F . T at the peak (T = unit tangent in travel direction)
+  double s_m = 0.0;      // arc length from the path start
+  Vec3 position;         // model length unit
   int edge = 0;
-  std::size_t segment = 0;   // index into Path::segments
+  std::size_t segment = 0;  // index into Path::segments
 };
 
 struct FieldWork {
@@ -56,7 +56,7 @@ struct SegmentWork {
   std::string name;
   double work_J = 0.0;
   double error_J = 0.0;
-  double abs_work_J = 0.0;   // integral of |F . dr|: cancellation indicator
+  double abs_work_J = 0.0;  // integral of |F . dr|: cancellation indicator
   double length_m = 0.0;
   long evaluations = 0;
   std::vector<FieldWork> fields;  // one per named field, in FieldSpec order
@@ -67,13 +67,13 @@ enum class Status { Converged, ToleranceNotMet };
 
 struct WorkResult {
   double work_J = 0.0;
-  double error_J = 0.0;       // estimate of |computed - true| for work_J
+  double error_J = 0.0;  // estimate of |computed - true| for work_J
   double abs_work_J = 0.0;
   double length_m = 0.0;
   double length_error_m = 0.0;
-  long evaluations = 0;       // field evaluations (each evaluates every named field once)
+  long evaluations = 0;  // field evaluations (each evaluates every named field once)
   Status status = Status::Converged;
-  bool closed = false;        // whole closed path integrated: work_J is the circulation of the total field
+  bool closed = false;  // whole closed path integrated: work_J is the circulation of the total field
   std::vector<SegmentWork> segments;  // in travel order; zero for segments outside the window
   std::vector<FieldWork> fields;      // totals per named field
   Peak peak;

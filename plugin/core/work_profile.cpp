@@ -8,8 +8,8 @@
 
 namespace ergpath {
 
-std::vector<ProfilePoint> work_profile(const Path& path, const FieldSpec& field, const std::vector<double>& s_m,
-                                       const IntegrationOptions& options) {
+std::vector<ProfilePoint> work_profile(const Path& path, const FieldSpec& field,
+                                       const std::vector<double>& s_m, const IntegrationOptions& options) {
   detail::WorkIntegrator integrator(path, field, options);
   const double total = integrator.arc().total_m();
   const double slack = 1e-12 * total;

@@ -26,7 +26,8 @@ struct ProfilePoint {
 
 /// One point per entry of s_m (metres, ascending, within [0, path length]); Error(BadOption) otherwise.
 /// IntegrationOptions' window is ignored; its tolerances apply to every stretch.
-std::vector<ProfilePoint> work_profile(const Path& path, const FieldSpec& field, const std::vector<double>& s_m,
+std::vector<ProfilePoint> work_profile(const Path& path, const FieldSpec& field,
+                                       const std::vector<double>& s_m,
                                        const IntegrationOptions& options = {});
 
 }  // namespace ergpath

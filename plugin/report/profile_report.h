@@ -23,9 +23,10 @@ struct ProfileContext {
 nlohmann::json profile_json(const std::vector<ProfilePoint>& points, const ProfileContext& context);
 
 /// Header line then one row per point, columns as in the JSON points; full double precision.
-void write_profile_csv(std::ostream& out, const std::vector<ProfilePoint>& points, const ProfileContext& context);
+void write_profile_csv(std::ostream& out, const std::vector<ProfilePoint>& points,
+                       const ProfileContext& context);
 
-void write_profile_text(std::ostream& out, const std::vector<ProfilePoint>& points, const ProfileContext& context,
-                        const std::string& caution);
+void write_profile_text(std::ostream& out, const std::vector<ProfilePoint>& points,
+                        const ProfileContext& context, const std::string& caution);
 
 }  // namespace ergpath::report

@@ -91,11 +91,12 @@ nlohmann::json work_json(const WorkResult& r, const WorkContext& c) {
   return j;
 }
 
-void write_work_text(std::ostream& out, const WorkResult& r, const WorkContext& c, const std::string& caution) {
+void write_work_text(std::ostream& out, const WorkResult& r, const WorkContext& c,
+                     const std::string& caution) {
   out << "Work along " << c.selector << " of " << c.model << " (" << r.segments.size() << " segment"
       << (r.segments.size() == 1 ? "" : "s") << (r.closed ? ", closed loop" : ", open") << ")\n";
-  out << "Formula length unit: " << c.field_length_unit << "; relative tolerance: " << format_number(c.rel_tol, 3)
-      << "\n\n";
+  out << "Formula length unit: " << c.field_length_unit
+      << "; relative tolerance: " << format_number(c.rel_tol, 3) << "\n\n";
   out << pad("#", 4) << pad("edge", 7) << "  " << pad("travel", 8, false) << pad("length [m]", 16)
       << pad("work [J]", 20) << pad("peak F.T [N]", 16) << "  name\n";
   for (std::size_t i = 0; i < r.segments.size(); ++i) {
@@ -110,23 +111,26 @@ void write_work_text(std::ostream& out, const WorkResult& r, const WorkContext& 
       << " J  (error estimate " << format_number(r.error_J, 2) << " J)\n";
   if (!r.closed && r.work_J < 0.0) {
     out << "The fields take " << format_number(-r.work_J, 6)
-        << " J from the moving part: a drive must supply at least that much (plus what the model leaves out).\n";
+        << " J from the moving part: a drive must supply at least that much (plus what the model leaves "
+           "out).\n";
   } else if (!r.closed && r.work_J > 0.0) {
     out << "The fields give " << format_number(r.work_J, 6)
         << " J to the moving part: a brake or damper must absorb it, or it becomes kinetic energy.\n";
   }
   out << "Path length: " << format_number(r.length_m) << " m";
   if (r.window_from_m > 0.0 || r.window_to_m < r.length_m) {
-    out << "; integrated from s = " << format_number(r.window_from_m) << " m to s = " << format_number(r.window_to_m)
-        << " m";
+    out << "; integrated from s = " << format_number(r.window_from_m)
+        << " m to s = " << format_number(r.window_to_m) << " m";
   }
   out << "\n";
   if (r.potential_drop_J) {
     out << "Potential check: -(U(end) - U(start)) = " << format_number(*r.potential_drop_J) << " J"
-        << (r.potential_mismatch ? "  MISMATCH: the potential does not match the force field\n" : "  (agrees)\n");
+        << (r.potential_mismatch ? "  MISMATCH: the potential does not match the force field\n"
+                                 : "  (agrees)\n");
   }
   if (r.closed && r.loop_mismatch) {
-    out << "WARNING: the field was stated conservative but its circulation around this closed loop is not zero "
+    out << "WARNING: the field was stated conservative but its circulation around this closed loop is not "
+           "zero "
            "within tolerance.\n";
   }
   if (c.curl) {
@@ -135,21 +139,24 @@ void write_work_text(std::ostream& out, const WorkResult& r, const WorkContext& 
     } else {
       out << "Curl check: max |curl F| = " << format_number(c.curl->max_curl_N_per_m, 4) << " N/m over "
           << c.curl->samples << " samples (relative " << format_number(c.curl->relative, 3) << ")"
-          << (c.curl->relative > 1e-6 ? ": the work depends on the path\n"
-                                      : ": no curl seen; path independence is plausible where the field is smooth\n");
+          << (c.curl->relative > 1e-6
+                  ? ": the work depends on the path\n"
+                  : ": no curl seen; path independence is plausible where the field is smooth\n");
     }
   }
   if (r.fields.size() > 1 || (r.fields.size() == 1 && r.fields[0].name != "F")) {
     out << "Work by field:\n";
-    for (const FieldWork& f : r.fields) out << "  " << pad(f.name, 16, false) << format_number(f.work_J) << " J\n";
+    for (const FieldWork& f : r.fields)
+      out << "  " << pad(f.name, 16, false) << format_number(f.work_J) << " J\n";
   }
   const double k = c.model_unit_m * 1e3;
-  out << "Peak tangential force: " << format_number(r.peak.force_N, 6) << " N at s = "
-      << format_number(r.peak.s_m, 6) << " m, (" << format_number(r.peak.position.x * k, 6) << ", "
-      << format_number(r.peak.position.y * k, 6) << ", " << format_number(r.peak.position.z * k, 6)
+  out << "Peak tangential force: " << format_number(r.peak.force_N, 6)
+      << " N at s = " << format_number(r.peak.s_m, 6) << " m, (" << format_number(r.peak.position.x * k, 6)
+      << ", " << format_number(r.peak.position.y * k, 6) << ", " << format_number(r.peak.position.z * k, 6)
       << ") mm on edge " << r.peak.edge << "\n";
   out << "Integrand evaluations: " << r.evaluations << "\n";
-  if (r.status != Status::Converged) out << "WARNING: tolerance not met; the value above is the best estimate.\n";
+  if (r.status != Status::Converged)
+    out << "WARNING: tolerance not met; the value above is the best estimate.\n";
   for (const std::string& n : c.notes) out << "Note: " << n << "\n";
   out << "\n" << caution << "\n";
 }

@@ -20,7 +20,7 @@ struct WorkContext {
   double model_unit_m = 1e-3;     // metres per model length unit of positions in the result
   std::string field_length_unit;  // "m", "mm", ... as seen by the formulas
   double rel_tol = 0.0;
-  std::vector<std::string> notes; // e.g. skipped degenerated edges
+  std::vector<std::string> notes;    // e.g. skipped degenerated edges
   std::optional<CurlEstimate> curl;  // when a curl check was asked for
 };
 

@@ -73,7 +73,8 @@ struct Integrand {
   long count = 0;
   Integrand(const Curve& c, double u, const FieldSpec& f, bool len)
       : curve(c), unit(u), spec(f), length_only(len), field(f), out(field.count()) {}
-  explicit Integrand(const Case& k) : Integrand(*k.path.segments[0].curve, k.path.length_unit_m, k.field, k.length_only) {}
+  explicit Integrand(const Case& k)
+      : Integrand(*k.path.segments[0].curve, k.path.length_unit_m, k.field, k.length_only) {}
   double operator()(double t) {
     ++count;
     Vec3 p, v;
@@ -174,27 +175,32 @@ void analytic_cases() {
   // Bezier fields; Green's theorem for the circle (2 pi R^2).
   constexpr double gap = 1e-3, x0 = 0.2;
   std::vector<Case> cases;
-  cases.push_back({"ellipse 3:1 perimeter (arc table)", one(std::make_shared<EllipseCurve>(Vec3{}, 3.0, 1.0, 0.0, 2 * M_PI), 1.0),
-                   spec("0,0,0"), true, 4 * 3.0 * boost::math::ellint_2(std::sqrt(1 - 1.0 / 9))});
+  cases.push_back({"ellipse 3:1 perimeter (arc table)",
+                   one(std::make_shared<EllipseCurve>(Vec3{}, 3.0, 1.0, 0.0, 2 * M_PI), 1.0), spec("0,0,0"),
+                   true, 4 * 3.0 * boost::math::ellint_2(std::sqrt(1 - 1.0 / 9))});
   const auto edge = std::make_shared<LineCurve>(Vec3{-1.5, 0, 0}, Vec3{1.5, 0, 0});
-  cases.push_back({"vortex 1 mm from 3 m edge", one(edge, 1.0),
-                   spec("-(y-y0)/((x-x0)^2+(y-y0)^2), (x-x0)/((x-x0)^2+(y-y0)^2), 0", {{"x0", x0}, {"y0", gap}}),
-                   false, std::atan2(-gap, 1.5 - x0) - std::atan2(-gap, -1.5 - x0)});
-  cases.push_back({"inverse square 1 mm from 3 m edge", one(edge, 1.0),
-                   spec("(x-x0)/((x-x0)^2+(y-y0)^2)^1.5, (y-y0)/((x-x0)^2+(y-y0)^2)^1.5, 0", {{"x0", x0}, {"y0", gap}}),
-                   false, 1.0 / std::hypot(1.5 + x0, gap) - 1.0 / std::hypot(1.5 - x0, gap)});
-  const auto bez = std::make_shared<BezierCurve>(std::vector<Vec3>{{0, 0, 0}, {0.2, 0.3, 0.1}, {0.5, -0.2, 0.3}, {0.8, 0.1, 0.2}});
+  cases.push_back(
+      {"vortex 1 mm from 3 m edge", one(edge, 1.0),
+       spec("-(y-y0)/((x-x0)^2+(y-y0)^2), (x-x0)/((x-x0)^2+(y-y0)^2), 0", {{"x0", x0}, {"y0", gap}}), false,
+       std::atan2(-gap, 1.5 - x0) - std::atan2(-gap, -1.5 - x0)});
+  cases.push_back(
+      {"inverse square 1 mm from 3 m edge", one(edge, 1.0),
+       spec("(x-x0)/((x-x0)^2+(y-y0)^2)^1.5, (y-y0)/((x-x0)^2+(y-y0)^2)^1.5, 0", {{"x0", x0}, {"y0", gap}}),
+       false, 1.0 / std::hypot(1.5 + x0, gap) - 1.0 / std::hypot(1.5 - x0, gap)});
+  const auto bez = std::make_shared<BezierCurve>(
+      std::vector<Vec3>{{0, 0, 0}, {0.2, 0.3, 0.1}, {0.5, -0.2, 0.3}, {0.8, 0.1, 0.2}});
   // U = sin(2x + y) z, so W = U(end) - U(start) = sin(1.7) 0.2.
   cases.push_back({"cubic Bezier, gradient field", one(bez, 1.0),
                    spec("2*cos(2*x+y)*z, cos(2*x+y)*z, sin(2*x+y)"), false, std::sin(1.7) * 0.2});
   // U = x^3 y^2 z: a degree-5 field on a cubic, so F . r' is a polynomial of degree 17.
   cases.push_back({"cubic Bezier, quintic gradient field", one(bez, 1.0),
                    spec("3*x^2*y^2*z, 2*x^3*y*z, x^3*y^2"), false, 0.512 * 0.01 * 0.2});
-  cases.push_back({"rational NURBS circle, (-y, x-0.1, 0)", one(std::make_shared<NurbsCurve>(nurbs_circle({0.1, 0, 0}, 0.5)), 1.0),
+  cases.push_back({"rational NURBS circle, (-y, x-0.1, 0)",
+                   one(std::make_shared<NurbsCurve>(nurbs_circle({0.1, 0, 0}, 0.5)), 1.0),
                    spec("-y, x-0.1, 0"), false, 2 * M_PI * 0.25});
 
-  std::printf("%-38s %6s %6s %7s %6s %6s %7s %6s %8s %9s %9s %8s\n", "case", "ours", "boost", "ratio", "boost@",
-              "ours*", "ratio*", "b1e-10", "polyline", "our err", "t ours", "t ratio");
+  std::printf("%-38s %6s %6s %7s %6s %6s %7s %6s %8s %9s %9s %8s\n", "case", "ours", "boost", "ratio",
+              "boost@", "ours*", "ratio*", "b1e-10", "polyline", "our err", "t ours", "t ratio");
   for (const Case& c : cases) {
     const Run r = ours(c, 1e-10);
     const double our_err = std::abs(r.value - c.exact) / r.scale;
@@ -232,15 +238,19 @@ void analytic_cases() {
     const double t_boost = boost_evals > 0 ? seconds_per_call([&] {
       Integrand f(c);
       boost_run(f, boost_tol, nullptr);
-    }) : 0.0;
-    std::printf("%-38s %6ld %6ld %7.3f %6.0e %6ld %7.3f %6ld %8ld %9.1e %7.1fus %8.3f\n", c.name.c_str(), r.evaluations,
-                boost_evals, boost_evals > 0 ? double(r.evaluations) / boost_evals : 0.0, boost_tol, scanned,
-                boost_evals > 0 ? double(scanned) / boost_evals : 0.0, at_target.count, chords, our_err, t_ours * 1e6,
-                t_boost > 0 ? t_ours / t_boost : 0.0);
+    })
+                                           : 0.0;
+    std::printf("%-38s %6ld %6ld %7.3f %6.0e %6ld %7.3f %6ld %8ld %9.1e %7.1fus %8.3f\n", c.name.c_str(),
+                r.evaluations, boost_evals, boost_evals > 0 ? double(r.evaluations) / boost_evals : 0.0,
+                boost_tol, scanned, boost_evals > 0 ? double(scanned) / boost_evals : 0.0, at_target.count,
+                chords, our_err, t_ours * 1e6, t_boost > 0 ? t_ours / t_boost : 0.0);
   }
-  std::printf("ratio = ours (requested 1e-10) / Boost at equal achieved accuracy 1e-10 (loosest Boost tolerance boost@ reaching it);\n"
-              "ratio* = the same scan for ours; b1e-10 = Boost's count at requested 1e-10; polyline = chords for 1e-6;\n"
-              "t ratio = time ours / Boost (ours includes compiling the field and the arc-length table).\n\n");
+  std::printf(
+      "ratio = ours (requested 1e-10) / Boost at equal achieved accuracy 1e-10 (loosest Boost tolerance "
+      "boost@ reaching it);\n"
+      "ratio* = the same scan for ours; b1e-10 = Boost's count at requested 1e-10; polyline = chords for "
+      "1e-6;\n"
+      "t ratio = time ours / Boost (ours includes compiling the field and the arc-length table).\n\n");
 }
 
 // ---- the largest NIST part ----
@@ -279,7 +289,8 @@ Part load(const std::string& file) {
   p.path.length_unit_m = 1e-3;
   for (const occt::EdgeInfo& e : p.model.edges()) {
     if (e.degenerated) continue;
-    p.path.segments.push_back({std::shared_ptr<const Curve>(p.model.make_curve(e.index)), false, e.index, ""});
+    p.path.segments.push_back(
+        {std::shared_ptr<const Curve>(p.model.make_curve(e.index)), false, e.index, ""});
     p.edges.push_back(e.index);
   }
   return p;
@@ -355,17 +366,17 @@ void nist_part() {
   const double t_work = seconds_per_call([&] { run_our_work(p, f, nullptr); });
   const double t_length = seconds_per_call([&] { occt_length = run_occt_lengths(p); });
   const ArcLength arc(p.path);
-  std::printf("NIST part %s: %zu edges with a curve (of %d)\n", std::filesystem::path(file).filename().c_str(),
-              p.path.segments.size(), p.model.edge_count());
-  std::printf("  work %.12g J (Boost at 1e-13: %.12g J, difference %.1e of the integral of |F.dr|)\n", w, reference,
-              std::abs(w - reference) / scale);
+  std::printf("NIST part %s: %zu edges with a curve (of %d)\n",
+              std::filesystem::path(file).filename().c_str(), p.path.segments.size(), p.model.edge_count());
+  std::printf("  work %.12g J (Boost at 1e-13: %.12g J, difference %.1e of the integral of |F.dr|)\n", w,
+              reference, std::abs(w - reference) / scale);
   std::printf("  length: ours %.12g m, OCCT GCPnts 1e-12 %.12g m, relative difference %.1e\n", arc.total_m(),
               occt_length, std::abs(arc.total_m() - occt_length) / occt_length);
-  std::printf("  evaluations: ours %ld (scan %ld), Boost %ld at %.0e, ratio %.3f (scan %.3f)\n", evals, scanned,
-              boost_evals, boost_tol, boost_evals > 0 ? double(evals) / boost_evals : 0.0,
+  std::printf("  evaluations: ours %ld (scan %ld), Boost %ld at %.0e, ratio %.3f (scan %.3f)\n", evals,
+              scanned, boost_evals, boost_tol, boost_evals > 0 ? double(evals) / boost_evals : 0.0,
               boost_evals > 0 ? double(scanned) / boost_evals : 0.0);
-  std::printf("  time: our work %.2f ms, OCCT lengths alone %.2f ms, ratio %.2f (target <= 3)\n", t_work * 1e3,
-              t_length * 1e3, t_work / t_length);
+  std::printf("  time: our work %.2f ms, OCCT lengths alone %.2f ms, ratio %.2f (target <= 3)\n",
+              t_work * 1e3, t_length * 1e3, t_work / t_length);
 }
 
 }  // namespace
@@ -379,7 +390,8 @@ int main(int argc, char** argv) {
       return 0;
     }
     const Part p = load(file);
-    const double v = !std::strcmp(argv[1], "nist-work") ? run_our_work(p, part_field(), nullptr) : run_occt_lengths(p);
+    const double v =
+        !std::strcmp(argv[1], "nist-work") ? run_our_work(p, part_field(), nullptr) : run_occt_lengths(p);
     std::printf("%s: %.12g\n", argv[1], v);
     return 0;
   }

@@ -16,8 +16,8 @@ extern char** environ;
 namespace ergpath::testing {
 
 std::string make_temp_dir(const std::string& prefix) {
-  std::string tmpl = (std::getenv("TMPDIR") ? std::string(std::getenv("TMPDIR")) : std::string("/tmp")) + "/" +
-                     prefix + "XXXXXX";
+  std::string tmpl = (std::getenv("TMPDIR") ? std::string(std::getenv("TMPDIR")) : std::string("/tmp")) +
+                     "/" + prefix + "XXXXXX";
   std::vector<char> buf(tmpl.begin(), tmpl.end());
   buf.push_back('\0');
   if (!mkdtemp(buf.data())) throw std::runtime_error("mkdtemp failed");

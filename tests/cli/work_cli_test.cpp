@@ -17,8 +17,8 @@ using json = nlohmann::json;
 
 // Standard acceleration of gravity, exact by definition (3rd CGPM, 1901).
 constexpr double kGn = 9.80665;
-// The engine's default relative tolerance is 1e-10 of the integral of |F.dr|; physics checks allow 1e-9 of the
-// reference value so that they test the engine, not the last digits of the error budget.
+// The engine's default relative tolerance is 1e-10 of the integral of |F.dr|; physics checks allow 1e-9 of
+// the reference value so that they test the engine, not the last digits of the error budget.
 constexpr double kPhysicsRel = 1e-9;
 // STEP writes reals with 12 significant digits (KERNEL-NOTES): the same geometry written in another unit can
 // move by ~1e-12 relative per coordinate; 1e-9 relative leaves room for the integrals' own tolerance.
@@ -72,8 +72,8 @@ TEST(WorkCommand, JsonHasTheDocumentedKeys) {
 TEST(WorkCommand, UniformGravityOnTheLiftTrackIsMinusMgDeltaZ) {
   // Potential of a uniform field: W = -m g_n (z_end - z_start), whatever the path between the ends.
   const json listing = cli_json({"list", fixture("lift_track_mm.stp")});
-  const json j = cli_json({"work", fixture("lift_track_mm.stp"), "--path", "all", "--field", "0, 0, -m*g_n",
-                           "--const", "m=25"});
+  const json j = cli_json(
+      {"work", fixture("lift_track_mm.stp"), "--path", "all", "--field", "0, 0, -m*g_n", "--const", "m=25"});
   const Point start = point(listing.at("edges").at(0).at("start_mm"));
   const std::vector<Point> ends = chain_ends(listing);
   ASSERT_EQ(ends.size(), 2u);
@@ -84,8 +84,11 @@ TEST(WorkCommand, UniformGravityOnTheLiftTrackIsMinusMgDeltaZ) {
 }
 
 TEST(WorkCommand, ReversingThePathNegatesWorkButNotLength) {
-  const std::vector<std::string> base{"work", fixture("lift_track_mm.stp"), "--path", "all", "--field",
-                                      "-k*(x-1), -k*y, -m*g_n", "--const", "k=40", "--const", "m=3"};
+  const std::vector<std::string> base{"work",    fixture("lift_track_mm.stp"),
+                                      "--path",  "all",
+                                      "--field", "-k*(x-1), -k*y, -m*g_n",
+                                      "--const", "k=40",
+                                      "--const", "m=3"};
   const json fwd = cli_json(base);
   std::vector<std::string> rev = base;
   rev.push_back("--reverse");
@@ -100,8 +103,8 @@ TEST(WorkCommand, SpringAboutAPointGivesTheHookePotentialDifference) {
   // Linear spring of rate k anchored at a: potential k/2 |r - a|^2, so W = -k/2 (r2^2 - r1^2) (Hooke's law).
   const json listing = cli_json({"list", fixture("lift_track_mm.stp")});
   const json j = cli_json({"work", fixture("lift_track_mm.stp"), "--path", "all", "--field",
-                           "-k*(x-ax), -k*(y-ay), -k*(z-az)", "--const", "k=120", "--const", "ax=1.6", "--const",
-                           "ay=0", "--const", "az=1.9"});
+                           "-k*(x-ax), -k*(y-ay), -k*(z-az)", "--const", "k=120", "--const", "ax=1.6",
+                           "--const", "ay=0", "--const", "az=1.9"});
   const Point start = point(listing.at("edges").at(0).at("start_mm"));
   const std::vector<Point> ends = chain_ends(listing);
   ASSERT_EQ(ends.size(), 2u);
@@ -113,7 +116,8 @@ TEST(WorkCommand, SpringAboutAPointGivesTheHookePotentialDifference) {
 }
 
 TEST(WorkCommand, TheSameTrackInMillimetresInchesAndMetresGivesTheSameJoules) {
-  const std::vector<std::string> field{"--field", "-k*(x-1), -k*y, -m*g_n", "--const", "k=40", "--const", "m=3"};
+  const std::vector<std::string> field{"--field", "-k*(x-1), -k*y, -m*g_n", "--const", "k=40", "--const",
+                                       "m=3"};
   std::map<std::string, json> results;
   for (const char* f : {"lift_track_mm.stp", "lift_track_in.stp", "lift_track_m.stp"}) {
     std::vector<std::string> args{"work", fixture(f), "--path", "all"};
@@ -133,8 +137,8 @@ TEST(WorkCommand, FieldLengthUnitChangesOnlyHowFormulasSeePositions) {
   const std::vector<std::string> base{"work", fixture("lift_track_mm.stp"), "--path", "all"};
   std::vector<std::string> m = base, mm = base;
   for (const char* a : {"--field", "-k*(x-1.6), -k*y, -k*(z-1.9)", "--const", "k=120"}) m.push_back(a);
-  for (const char* a : {"--field", "-k*(x-1600), -k*y, -k*(z-1900)", "--const", "k=0.12", "--field-length-unit",
-                        "mm"}) {
+  for (const char* a :
+       {"--field", "-k*(x-1600), -k*y, -k*(z-1900)", "--const", "k=0.12", "--field-length-unit", "mm"}) {
     mm.push_back(a);
   }
   const double wm = cli_json(m).at("work_J").get<double>();
@@ -144,8 +148,8 @@ TEST(WorkCommand, FieldLengthUnitChangesOnlyHowFormulasSeePositions) {
 
 TEST(WorkCommand, AnUnorderedSketchIsChainedWithSomeEdgesTravelledAgainstTheirParameter) {
   const json listing = cli_json({"list", fixture("sketch_unordered.stp")});
-  const json j = cli_json({"work", fixture("sketch_unordered.stp"), "--path", "all", "--field", "0, 0, -m*g_n",
-                           "--const", "m=2"});
+  const json j = cli_json({"work", fixture("sketch_unordered.stp"), "--path", "all", "--field",
+                           "0, 0, -m*g_n", "--const", "m=2"});
   ASSERT_EQ(j.at("segments").size(), listing.at("edges").size());
   int reversed = 0;
   for (const json& s : j.at("segments")) reversed += s.at("reversed").get<bool>() ? 1 : 0;

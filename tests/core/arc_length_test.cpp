@@ -70,7 +70,8 @@ TEST(ArcLength, LocateInvertsArcLengthEverywhereOnAMultiSegmentPath) {
 TEST(ArcLength, LocateFindsParametersWhereTheSpeedVanishes) {
   // x(t) = (2t - 1)^3 as a cubic Bezier (poles -1, 1, -1, 1 from P1 = P0 + x'(0)/3, P2 = P3 - x'(1)/3):
   // monotone, length 2, and r'(1/2) = 0, where Newton needs its bisection fallback.
-  const Path path = single(make<BezierCurve>(std::vector<Vec3>{{-1, 0, 0}, {1, 0, 0}, {-1, 0, 0}, {1, 0, 0}}));
+  const Path path =
+      single(make<BezierCurve>(std::vector<Vec3>{{-1, 0, 0}, {1, 0, 0}, {-1, 0, 0}, {1, 0, 0}}));
   const ArcLength arc(path);
   EXPECT_NEAR(arc.total_m(), 2.0, kLength * 2);
   const PathLocation mid = arc.locate(1.0);

@@ -54,22 +54,31 @@ std::shared_ptr<const Curve> bezier() {
 // A cubic B-spline with a triple interior knot at 0.5: a corner (C0) there, smooth elsewhere.
 std::shared_ptr<const Curve> cornered_spline() {
   return make<NurbsCurve>(3, std::vector<double>{0, 0, 0, 0, 0.5, 0.5, 0.5, 1, 1, 1, 1},
-                          std::vector<Vec3>{{0, 0, 0}, {0.1, 0.2, 0}, {0.3, 0.3, 0.1}, {0.4, 0.1, 0.1},
-                                            {0.6, 0.3, 0.0}, {0.7, 0.5, 0.2}, {0.9, 0.4, 0.3}},
+                          std::vector<Vec3>{{0, 0, 0},
+                                            {0.1, 0.2, 0},
+                                            {0.3, 0.3, 0.1},
+                                            {0.4, 0.1, 0.1},
+                                            {0.6, 0.3, 0.0},
+                                            {0.7, 0.5, 0.2},
+                                            {0.9, 0.4, 0.3}},
                           std::vector<double>(7, 1.0));
 }
 
 std::vector<Scenario> scenarios() {
   std::vector<Scenario> s;
-  s.push_back({"smooth exp-sin on a twisted cubic", [] { return single(make<TwistedCubicCurve>(0.7, -0.4, 1.2)); },
+  s.push_back({"smooth exp-sin on a twisted cubic",
+               [] { return single(make<TwistedCubicCurve>(0.7, -0.4, 1.2)); },
                "exp(x)*sin(2*y), 2*exp(x)*cos(2*y), 2*z",
                [](const Vec3& p) { return std::exp(p.x) * std::sin(2 * p.y) + p.z * p.z; }});
   s.push_back({"smooth field round a rational circle (closed: zero)",
-               [] { return single(make<NurbsCurve>(nurbs_circle({0.1, -0.2, 0.0}, 0.4))); },
+               [] {
+                 return single(make<NurbsCurve>(nurbs_circle({0.1, -0.2, 0.0}, 0.4)));
+               },
                "3*cos(3*x)*cosh(y), sin(3*x)*sinh(y), 0",
                [](const Vec3& p) { return std::sin(3 * p.x) * std::cosh(p.y); }});
   s.push_back({"degree-17 polynomial integrand on a cubic", [] { return single(bezier()); },
-               "3*x^2*y^2*z, 2*x^3*y*z, x^3*y^2", [](const Vec3& p) { return p.x * p.x * p.x * p.y * p.y * p.z; }});
+               "3*x^2*y^2*z, 2*x^3*y*z, x^3*y^2",
+               [](const Vec3& p) { return p.x * p.x * p.x * p.y * p.y * p.z; }});
   for (double k : {20.0, 80.0, 300.0}) {
     s.push_back({"oscillatory k=" + std::to_string(int(k)), [] { return single(bezier()); },
                  std::to_string(k) + "*cos(" + std::to_string(k) + "*x)*cos(y), -sin(" + std::to_string(k) +
@@ -88,8 +97,12 @@ std::vector<Scenario> scenarios() {
                  [gap](const Vec3& p) { return -1.0 / std::hypot(p.x - 0.2, p.y - gap); }});
   }
   // U = (x - c)|x - c|: F = (2|x - c|, 0, 0) has a kink inside a span, away from every break.
-  s.push_back({"kink inside a span of a line", [] { return single(make<LineCurve>(Vec3{0, 0, 0}, Vec3{1, 0.5, 0.2})); },
-               "2*abs(x-0.3137), 0, 0", [](const Vec3& p) { return (p.x - 0.3137) * std::abs(p.x - 0.3137); }});
+  s.push_back({"kink inside a span of a line",
+               [] {
+                 return single(make<LineCurve>(Vec3{0, 0, 0}, Vec3{1, 0.5, 0.2}));
+               },
+               "2*abs(x-0.3137), 0, 0",
+               [](const Vec3& p) { return (p.x - 0.3137) * std::abs(p.x - 0.3137); }});
   s.push_back({"kink inside a span of a cubic", [] { return single(bezier()); }, "2*abs(x-0.3137), 0, 0",
                [](const Vec3& p) { return (p.x - 0.3137) * std::abs(p.x - 0.3137); }});
   s.push_back({"corner at a knot of a cubic B-spline", [] { return single(cornered_spline()); },
@@ -123,7 +136,8 @@ TEST_P(ErrorEstimateBoundsTrueError, ForEveryKindOfIntegrand) {
 
 INSTANTIATE_TEST_SUITE_P(Tolerances, ErrorEstimateBoundsTrueError,
                          ::testing::Values(Setting{1e-4, true}, Setting{1e-7, true}, Setting{1e-10, true},
-                                           Setting{1e-12, true}, Setting{1e-7, false}, Setting{1e-10, false}));
+                                           Setting{1e-12, true}, Setting{1e-7, false},
+                                           Setting{1e-10, false}));
 
 }  // namespace
 }  // namespace ergpath

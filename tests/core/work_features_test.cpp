@@ -19,7 +19,8 @@ using testing::single;
 constexpr double kTarget = 1e-10;
 
 std::shared_ptr<const Curve> wavy_bezier_mm() {
-  return make<BezierCurve>(std::vector<Vec3>{{0, 0, 0}, {150, 220, 40}, {420, -180, 90}, {600, 60, 0}, {700, 0, 30}});
+  return make<BezierCurve>(
+      std::vector<Vec3>{{0, 0, 0}, {150, 220, 40}, {420, -180, 90}, {600, 60, 0}, {700, 0, 30}});
 }
 
 TEST(WorkWithTangentVariables, CoulombFrictionDoesMinusMuNTimesLength) {
@@ -39,7 +40,8 @@ TEST(WorkWithArcLengthVariable, ForceFallingLinearlyWithDistanceIntegratesExactl
   // F = -(F0 - c s) T: W = -(F0 L - c L^2 / 2), elementary integral of a linear function of s.
   const double f0 = 80.0, c = 30.0;
   const Path path = single(wavy_bezier_mm(), 1e-3);
-  const WorkResult r = compute_work(path, force("-(F0-c*s)*tx, -(F0-c*s)*ty, -(F0-c*s)*tz", {{"F0", f0}, {"c", c}}));
+  const WorkResult r =
+      compute_work(path, force("-(F0-c*s)*tx, -(F0-c*s)*ty, -(F0-c*s)*tz", {{"F0", f0}, {"c", c}}));
   const double len = r.length_m;
   const double exact = -(f0 * len - 0.5 * c * len * len);
   EXPECT_NEAR(r.work_J, exact, kTarget * r.abs_work_J);
@@ -145,8 +147,8 @@ TEST(NearSingularField, VortexOneMillimetreFromTheEdgeGivesTheSweptAngle) {
   // F = (-(y - y0), x - x0, 0) / rho^2 is grad(theta) of the polar angle about (x0, y0), so W is the
   // angle swept seen from the source (vector calculus, standard).
   const Path path = single(make<LineCurve>(Vec3{-1.5, 0, 0}, Vec3{1.5, 0, 0}));
-  const FieldSpec f = force("-(y-y0)/((x-x0)^2+(y-y0)^2), (x-x0)/((x-x0)^2+(y-y0)^2), 0",
-                            {{"x0", kSourceX}, {"y0", kGap}});
+  const FieldSpec f =
+      force("-(y-y0)/((x-x0)^2+(y-y0)^2), (x-x0)/((x-x0)^2+(y-y0)^2), 0", {{"x0", kSourceX}, {"y0", kGap}});
   const WorkResult r = compute_work(path, f);
   const double exact = std::atan2(-kGap, 1.5 - kSourceX) - std::atan2(-kGap, -1.5 - kSourceX);
   EXPECT_EQ(r.status, Status::Converged);

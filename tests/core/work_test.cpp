@@ -91,11 +91,11 @@ TEST(WorkAlongPath, ChangingTheFieldLengthUnitChangesNothingPhysical) {
   // The same spring seen with positions in metres and in millimetres, on a path modelled in millimetres
   // and in metres: work is a physical quantity and must not move.
   const auto mm_curve = lifting_bezier_mm();
-  const auto m_curve = make<BezierCurve>(
-      std::vector<Vec3>{{0, 0, 0}, {0.2, 0.05, 0.3}, {0.4, -0.1, 0.1}, {0.6, 0, 0.45}});
+  const auto m_curve =
+      make<BezierCurve>(std::vector<Vec3>{{0, 0, 0}, {0.2, 0.05, 0.3}, {0.4, -0.1, 0.1}, {0.6, 0, 0.45}});
   const WorkResult in_m = compute_work(single(mm_curve, 1e-3), force("-k*x, -k*y^2, 7", {{"k", 40.0}}, 1.0));
-  const WorkResult in_mm = compute_work(single(m_curve, 1.0),
-                                        force("-k*x/1000, -k*(y/1000)^2, 7", {{"k", 40.0}}, 1e-3));
+  const WorkResult in_mm =
+      compute_work(single(m_curve, 1.0), force("-k*x/1000, -k*(y/1000)^2, 7", {{"k", 40.0}}, 1e-3));
   EXPECT_NEAR(in_mm.work_J, in_m.work_J, kSameQuantity * in_m.abs_work_J);
   EXPECT_NEAR(in_mm.length_m, in_m.length_m, kSameQuantity * in_m.length_m);
 }
@@ -169,7 +169,8 @@ TEST(WorkAlongPath, ExhaustedBudgetReturnsBestValueWithToleranceNotMet) {
   o.max_evaluations = 40;
   o.split_at_peaks = false;
   const Path path = single(make<LineCurve>(Vec3{-1.5, 0, 0}, Vec3{1.5, 0, 0}));
-  const WorkResult r = compute_work(path, force("-(y-1e-3)/((x-0.2)^2+(y-1e-3)^2), (x-0.2)/((x-0.2)^2+(y-1e-3)^2), 0"), o);
+  const WorkResult r =
+      compute_work(path, force("-(y-1e-3)/((x-0.2)^2+(y-1e-3)^2), (x-0.2)/((x-0.2)^2+(y-1e-3)^2), 0"), o);
   EXPECT_EQ(r.status, Status::ToleranceNotMet);
   EXPECT_TRUE(std::isfinite(r.work_J));
   EXPECT_GT(r.error_J, 0.0);

@@ -1,6 +1,6 @@
 // Ellipse perimeters against the complete elliptic integral of the second kind (Boost.Math ellint_2).
-#include <boost/math/special_functions/ellint_2.hpp>
 #include <gtest/gtest.h>
+#include <boost/math/special_functions/ellint_2.hpp>
 
 #include <cmath>
 
