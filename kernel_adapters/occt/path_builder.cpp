@@ -9,22 +9,16 @@
 #include <sstream>
 #include <unordered_map>
 
+#include "kernel_adapters/occt/length_text.h"
 #include "plugin/core/error.h"
 
 namespace ergpath::occt {
 
 namespace {
 
-constexpr double kMetresPerMillimetre = 1e-3;
-
-std::string mm(double v) {
-  std::ostringstream os;
-  os.precision(6);
-  os << v;
-  return os.str();
+std::string point(const Vec3& p) {
+  return "(" + mm_text(p.x) + ", " + mm_text(p.y) + ", " + mm_text(p.z) + ") mm";
 }
-
-std::string point(const Vec3& p) { return "(" + mm(p.x) + ", " + mm(p.y) + ", " + mm(p.z) + ") mm"; }
 
 // Union-find over end points.
 struct Disjoint {
@@ -90,7 +84,7 @@ Path build_path(const StepModel& model, const std::vector<int>& edges, const Pat
   const std::string& file = model.file();
   if (!std::isfinite(options.gap_tolerance_mm) || options.gap_tolerance_mm < 0.0) {
     throw Error(ErrorKind::BadOption,
-                "gap tolerance must be a finite length >= 0 mm, got " + mm(options.gap_tolerance_mm));
+                "gap tolerance must be a finite length >= 0 mm, got " + mm_text(options.gap_tolerance_mm));
   }
   if (options.start_mm && !is_finite(*options.start_mm)) {
     throw Error(ErrorKind::BadOption, "start point must have finite coordinates (mm)");
@@ -165,9 +159,9 @@ Path build_path(const StepModel& model, const std::vector<int>& edges, const Pat
         }
     if (kept[ba / 2] > kept[bb / 2]) std::swap(ba, bb);
     throw Error(ErrorKind::GapTooLarge,
-                file + ": gap of " + mm(best) + " mm between edge " + std::to_string(kept[ba / 2]) +
+                file + ": gap of " + mm_text(best) + " mm between edge " + std::to_string(kept[ba / 2]) +
                     " and edge " + std::to_string(kept[bb / 2]) + " exceeds the chaining tolerance of " +
-                    mm(options.gap_tolerance_mm) + " mm");
+                    mm_text(options.gap_tolerance_mm) + " mm");
   }
 
   // Every node has one or two incident ends: an open chain has two ends of degree one, a loop none.

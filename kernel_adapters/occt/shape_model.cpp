@@ -16,21 +16,13 @@
 #include <utility>
 #include <vector>
 
+#include "kernel_adapters/occt/length_text.h"
 #include "kernel_adapters/occt/step_model_impl.h"
 #include "plugin/core/error.h"
 
 namespace ergpath::occt {
 
 namespace {
-
-constexpr double kMetresPerMillimetre = 1e-3;
-
-std::string mm(double v) {
-  std::ostringstream os;
-  os.precision(6);
-  os << v;
-  return os.str();
-}
 
 Segment segment_of(const StepModel& model, int index, bool reversed) {
   Segment s;
@@ -75,7 +67,7 @@ StepModel model_from_shape(const TopoDS_Shape& shape, const std::string& label) 
 std::optional<Path> path_of_shape(const StepModel& model, const PathOptions& options) {
   if (!std::isfinite(options.gap_tolerance_mm) || options.gap_tolerance_mm < 0.0) {
     throw Error(ErrorKind::BadOption,
-                "gap tolerance must be a finite length >= 0 mm, got " + mm(options.gap_tolerance_mm));
+                "gap tolerance must be a finite length >= 0 mm, got " + mm_text(options.gap_tolerance_mm));
   }
   if (options.start_mm && !is_finite(*options.start_mm)) {
     throw Error(ErrorKind::BadOption, "start point must have finite coordinates (mm)");
@@ -105,11 +97,11 @@ std::optional<Path> path_of_shape(const StepModel& model, const PathOptions& opt
   for (std::size_t i = 1; i < path.segments.size(); ++i) {
     const double gap = distance(travel_end(path.segments[i - 1]), travel_start(path.segments[i]));
     if (gap > options.gap_tolerance_mm) {
-      throw Error(ErrorKind::GapTooLarge, model.file() + ": gap of " + mm(gap) + " mm between edge " +
+      throw Error(ErrorKind::GapTooLarge, model.file() + ": gap of " + mm_text(gap) + " mm between edge " +
                                               std::to_string(path.segments[i - 1].edge) + " and edge " +
                                               std::to_string(path.segments[i].edge) +
                                               " exceeds the chaining tolerance of " +
-                                              mm(options.gap_tolerance_mm) + " mm");
+                                              mm_text(options.gap_tolerance_mm) + " mm");
     }
   }
   path.closed = distance(travel_end(path.segments.back()), travel_start(path.segments.front())) <=

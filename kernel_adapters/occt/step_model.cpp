@@ -34,6 +34,7 @@
 #include <sstream>
 
 #include "kernel_adapters/occt/edge_curve.h"
+#include "kernel_adapters/occt/length_text.h"
 #include "kernel_adapters/occt/step_model_impl.h"
 #include "kernel_adapters/occt/xde_names.h"
 #include "plugin/core/curve_length.h"
@@ -46,7 +47,6 @@ namespace {
 // Relative accuracy of the listed edge lengths: the integrator reaches ~1e-14 on smooth spans, and
 // 1e-12 keeps every listed digit meaningful while the corpus (~10k edges) still lists in seconds.
 constexpr double kLengthRelTol = 1e-12;
-constexpr double kMetresPerMillimetre = 1e-3;
 // Bytes inspected at the end of a file for the exchange-structure terminator (ISO 10303-21, clause 5):
 // enough for trailing comments and blank lines after "END-ISO-10303-21;".
 constexpr std::streamoff kTailBytes = 4096;

@@ -11,22 +11,12 @@ namespace ergpath::occt {
 namespace {
 
 using testing::fixture;
+using testing::kind_of;
 
 // STEP writes the weight 1/sqrt(2) with 12 significant digits, so the stored curve is a circle only to
 // ~1e-12 relative; its length (Piegl & Tiller, The NURBS Book, sec. 7.5: exact for the true weight) agrees
 // to that order.
 constexpr double kRoundedWeightRel = 1e-11;
-
-template <class F>
-ErrorKind kind_of(F f) {
-  try {
-    f();
-  } catch (const Error& e) {
-    return e.kind();
-  }
-  ADD_FAILURE() << "no ergpath::Error thrown";
-  return ErrorKind::OutputFailed;
-}
 
 TEST(EdgeInventory, TheZooHasOneEdgeOfEachKernelCurveKind) {
   const StepModel m = StepModel::read(fixture("shapes_zoo.stp"));

@@ -9,19 +9,8 @@ namespace ergpath::occt {
 namespace {
 
 using testing::fixture;
+using testing::kind_of;
 using V = std::vector<int>;
-
-template <class F>
-ErrorKind kind_of(F f, std::string* message = nullptr) {
-  try {
-    f();
-  } catch (const Error& e) {
-    if (message) *message = e.what();
-    return e.kind();
-  }
-  ADD_FAILURE() << "no ergpath::Error thrown";
-  return ErrorKind::OutputFailed;
-}
 
 class LiftTrack : public ::testing::Test {
  protected:

@@ -13,6 +13,7 @@ namespace ergpath::occt {
 namespace {
 
 using testing::fixture;
+using testing::kind_of;
 
 // Consecutive segments share an end point up to STEP's 12-significant-digit rounding of coordinates
 // below 1e3 mm (5e-10 mm), well inside the default 1e-3 mm chaining tolerance.
@@ -21,18 +22,6 @@ constexpr double kJoinTolMm = 1e-9;
 constexpr double kLengthRel = 1e-11;
 // Work integrals at the engine's default 1e-10 relative target, compared with a closed form.
 constexpr double kWorkRel = 1e-9;
-
-template <class F>
-ErrorKind kind_of(F f, std::string* message = nullptr) {
-  try {
-    f();
-  } catch (const Error& e) {
-    if (message) *message = e.what();
-    return e.kind();
-  }
-  ADD_FAILURE() << "no ergpath::Error thrown";
-  return ErrorKind::OutputFailed;
-}
 
 double path_length_mm(const Path& p) {
   double sum = 0.0;

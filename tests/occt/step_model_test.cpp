@@ -20,6 +20,7 @@ namespace {
 using testing::fixture;
 using testing::gcpnts_length_mm;
 using testing::kernel_edge;
+using testing::kind_of;
 
 // STEP writes reals with 12 significant digits, so a coordinate near 1000 mm carries up to ~5e-10 mm
 // of rounding; 1e-9 mm is the resulting bound for points of our fixtures (all within 2 m of the origin).
@@ -34,17 +35,6 @@ void expect_point(const Vec3& p, double x, double y, double z) {
   EXPECT_NEAR(p.x, x, kStepPointTolMm);
   EXPECT_NEAR(p.y, y, kStepPointTolMm);
   EXPECT_NEAR(p.z, z, kStepPointTolMm);
-}
-
-template <class F>
-ErrorKind kind_of(F f) {
-  try {
-    f();
-  } catch (const Error& e) {
-    return e.kind();
-  }
-  ADD_FAILURE() << "no ergpath::Error thrown";
-  return ErrorKind::OutputFailed;
 }
 
 std::string message_of(const std::string& file) {
