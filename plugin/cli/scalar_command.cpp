@@ -89,7 +89,8 @@ ScalarResult run_scalar_on_path(const occt::StepModel&, const Path& path, const 
 }
 
 void add_scalar_options(CLI::App& cmd, ScalarArgs& a) {
-  cmd.add_option("--path", a.path.selector, "Edges to travel (see docs/selectors.md)");
+  cmd.add_option("--path", a.path.selector, "Edges to travel (optional; default all): see docs/selectors.md")
+      ->option_text("SEL [all]");
   cmd.add_flag("--reverse", a.path.reverse, "Travel the whole path the other way");
   cmd.add_option("--start", a.path.start, "X,Y,Z in mm: start an open chain at its end nearest this point");
   cmd.add_option("--gap-tolerance", a.path.gap_tolerance_mm, "Largest gap between consecutive edges, mm");

@@ -81,7 +81,8 @@ WorkResult run_work_on_path(const occt::StepModel& model, const Path& path, cons
 
 void add_work_options(CLI::App& cmd, WorkArgs& args) {
   cmd.add_option("--path", args.path.selector,
-                 "Edges to travel: all, edge:I, edges:I,J,K (see docs/selectors.md)");
+                 "Edges to travel (optional; default all): all, edge:I, edges:I,J,K (see docs/selectors.md)")
+      ->option_text("SEL [all]");
   cmd.add_flag("--reverse", args.path.reverse, "Travel the whole path the other way");
   cmd.add_option("--start", args.path.start,
                  "X,Y,Z in mm: start an open chain at its end nearest this point");

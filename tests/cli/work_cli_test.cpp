@@ -8,6 +8,7 @@
 #include <vector>
 
 #include "run_process.h"
+#include "tests/test_name.h"
 
 namespace {
 
@@ -214,9 +215,7 @@ std::vector<BadCase> bad_cases() {
 
 INSTANTIATE_TEST_SUITE_P(WorkCommand, BadInput, ::testing::ValuesIn(bad_cases()),
                          [](const ::testing::TestParamInfo<BadCase>& i) {
-                           std::string n = i.param.what;
-                           for (char& ch : n) ch = std::isalnum(static_cast<unsigned char>(ch)) ? ch : '_';
-                           return n;
+                           return ergpath::testing::test_name(i.param.what);
                          });
 
 }  // namespace

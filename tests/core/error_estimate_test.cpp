@@ -7,6 +7,7 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <cstdio>
 #include <functional>
 #include <limits>
 #include <string>
@@ -14,6 +15,7 @@
 
 #include "plugin/core/work.h"
 #include "tests/core/test_paths.h"
+#include "tests/test_name.h"
 
 namespace ergpath {
 namespace {
@@ -136,8 +138,15 @@ TEST_P(ErrorEstimateBoundsTrueError, ForEveryKindOfIntegrand) {
 
 INSTANTIATE_TEST_SUITE_P(Tolerances, ErrorEstimateBoundsTrueError,
                          ::testing::Values(Setting{1e-4, true}, Setting{1e-7, true}, Setting{1e-10, true},
-                                           Setting{1e-12, true}, Setting{1e-7, false},
-                                           Setting{1e-10, false}));
+                                           Setting{1e-12, true}, Setting{1e-7, false}, Setting{1e-10, false}),
+                         [](const ::testing::TestParamInfo<Setting>& i) {
+                           // "rel_tol_1e_10_peaks_split": stable across builds, usable with ctest -R.
+                           char tol[16];
+                           std::snprintf(tol, sizeof tol, "%.0e", i.param.rel_tol);
+                           return ergpath::testing::test_name(
+                               std::string("rel_tol_") + tol +
+                               (i.param.split_at_peaks ? "_peaks_split" : "_no_peak_split"));
+                         });
 
 }  // namespace
 }  // namespace ergpath

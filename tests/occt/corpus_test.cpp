@@ -6,6 +6,7 @@
 #include "kernel_adapters/occt/path_builder.h"
 #include "occt_test_support.h"
 #include "plugin/core/work.h"
+#include "tests/test_name.h"
 
 namespace ergpath::occt {
 namespace {
@@ -65,10 +66,7 @@ std::vector<std::string> params() {
 
 std::string param_name(const ::testing::TestParamInfo<std::string>& info) {
   if (info.param.empty()) return "absent";
-  std::string s = std::filesystem::path(info.param).stem().string();
-  for (char& c : s)
-    if (!std::isalnum(static_cast<unsigned char>(c))) c = '_';
-  return s;
+  return ergpath::testing::test_name(std::filesystem::path(info.param).stem().string());
 }
 
 INSTANTIATE_TEST_SUITE_P(Files, Corpus, ::testing::ValuesIn(params()), param_name);

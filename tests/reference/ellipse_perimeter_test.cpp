@@ -3,10 +3,12 @@
 #include <boost/math/special_functions/ellint_2.hpp>
 
 #include <cmath>
+#include <cstdio>
 
 #include "plugin/core/arc_length.h"
 #include "plugin/core/work.h"
 #include "tests/core/test_paths.h"
+#include "tests/test_name.h"
 
 namespace ergpath {
 namespace {
@@ -37,7 +39,13 @@ TEST_P(EllipsePerimeter, MatchesFourATimesCompleteEllipticIntegralOfSecondKind) 
 }
 
 // 3:1 down to 1000:1: the trapezoid rule handles moderate eccentricity, Gauss-Kronrod the rest.
-INSTANTIATE_TEST_SUITE_P(AspectRatios, EllipsePerimeter, ::testing::Values(1.0, 1.0 / 3, 0.1, 0.01, 0.001));
+INSTANTIATE_TEST_SUITE_P(AspectRatios, EllipsePerimeter, ::testing::Values(1.0, 1.0 / 3, 0.1, 0.01, 0.001),
+                         [](const ::testing::TestParamInfo<double>& i) {
+                           // "b_over_a_0_333": the axis ratio, stable across builds.
+                           char text[32];
+                           std::snprintf(text, sizeof text, "b_over_a_%.3g", i.param);
+                           return ergpath::testing::test_name(text);
+                         });
 
 TEST(EllipsePerimeterCost, ThreeToOneEllipseTakesFewEvaluations) {
   Path path = single(make<EllipseCurve>(Vec3{0, 0, 0}, 3.0, 1.0, 0.0, 2 * M_PI));
