@@ -59,11 +59,11 @@ int run(int argc, char** argv, std::ostream& out, std::ostream& err) {
       err << "ergpath: error: " << e.what() << "\n";
       return exit_code(e.kind());
     } catch (const std::bad_alloc&) {
-      err << "ergpath: error: out of memory\n";
-      return 4;
+      err << "ergpath: error: internal: out of memory\n";
+      return exit_code(ErrorKind::Internal);
     } catch (const std::exception& e) {
       err << "ergpath: error: internal: " << e.what() << "\n";
-      return 5;
+      return exit_code(ErrorKind::Internal);
     }
   }
   err << "ergpath: error: no command given (see ergpath --help)\n";

@@ -26,12 +26,22 @@ const char* to_string(ErrorKind kind) {
       return "bad_option";
     case ErrorKind::BadManifest:
       return "bad_manifest";
+    case ErrorKind::BadGeometry:
+      return "bad_geometry";
+    case ErrorKind::NoField:
+      return "no_field";
+    case ErrorKind::DuplicateField:
+      return "duplicate_field";
+    case ErrorKind::NoSuchShape:
+      return "no_such_shape";
     case ErrorKind::NonFiniteField:
       return "non_finite_field";
     case ErrorKind::ToleranceNotMet:
       return "tolerance_not_met";
     case ErrorKind::OutputFailed:
       return "output_failed";
+    case ErrorKind::Internal:
+      return "internal";
   }
   return "unknown";
 }
@@ -43,6 +53,8 @@ int exit_code(ErrorKind kind) {
       return 3;
     case ErrorKind::OutputFailed:
       return 4;
+    case ErrorKind::Internal:
+      return 5;
     default:
       return 2;
   }
